@@ -32,7 +32,7 @@ export async function startServer(config: Config, log: Logger): Promise<RunningS
   try {
     if (applied.length) log.info(`[db] applied migrations: ${applied.join(', ')}`);
     if (config.SEED_DEMO) {
-      const { created } = await seedDemo(dataSource);
+      const { created } = await seedDemo(dataSource, { bcryptCost: config.BCRYPT_COST });
       log.info(
         created.length
           ? `[seed] created ${created.join(', ')}`
@@ -56,6 +56,7 @@ export async function startServer(config: Config, log: Logger): Promise<RunningS
       await new Promise<void>((resolve) => {
         application.io.close(() => resolve());
       });
+      await application.close();
       for (const cleanup of cleanups) await cleanup();
     };
     return {

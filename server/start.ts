@@ -62,7 +62,7 @@ async function main(): Promise<void> {
   server = await startServer(config, log);
   log.info('');
   log.info(`Rampart is up: ${server.url}/`);
-  for (const line of DEMO_SIGN_IN) log.info(`  ${line}`);
+  if (config.SEED_DEMO) for (const line of DEMO_SIGN_IN) log.info(`  ${line}`);
   if (server.mailbox) log.info(`  mailbox (development only): ${server.url}/dev/mailbox`);
   log.info('Press Ctrl-C to stop the server and the database.');
 }

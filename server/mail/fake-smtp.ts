@@ -1,6 +1,8 @@
 import type { AddressInfo } from 'node:net';
 import { SMTPServer } from 'smtp-server';
 
+import { linksIn, plainTextBody } from './mail-body';
+
 /** One message the fake SMTP server accepted. */
 export interface ReceivedMail {
   id: number;
@@ -10,6 +12,10 @@ export interface ReceivedMail {
   subject: string;
   /** The raw message, headers and body (RFC 5322). */
   raw: string;
+  /** The decoded plain-text body. */
+  text: string;
+  /** Every http(s) link in the body, in order (invitation and reset links). */
+  links: string[];
 }
 
 /**
@@ -43,6 +49,7 @@ export class FakeSmtpServer {
         stream.on('data', (c: Buffer) => chunks.push(c));
         stream.on('end', () => {
           const raw = Buffer.concat(chunks).toString('utf8');
+          const text = plainTextBody(raw);
           this._messages.push({
             id: this._nextId++,
             receivedAt: new Date().toISOString(),
@@ -50,6 +57,8 @@ export class FakeSmtpServer {
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: headerValue(raw, 'subject'),
             raw,
+            text,
+            links: linksIn(text),
           });
           if (this._messages.length > 500) this._messages.shift();
           callback();

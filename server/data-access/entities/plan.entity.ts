@@ -26,6 +26,10 @@ export class PlanEntity {
   @Column({ type: 'text', default: '' })
   description: string;
 
+  /** The team whose members may open the plan; null only for rows made before teams existed. */
+  @Column({ type: 'uuid', name: 'team_id', nullable: true })
+  teamId: string | null;
+
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;
 

@@ -1,8 +1,10 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
+
+import { AuthSession } from '../../shared/auth/auth-session';
 
 /** Landing page: what Rampart does and where to start. */
 @Component({
@@ -17,9 +19,13 @@ import { RouterLink } from '@angular/router';
         the circuit that produces it; state the requirements. Rampart computes the real curves with
         worst-case corners and Monte Carlo spread, and reports every margin.
       </p>
-      <a matButton="filled" routerLink="/sign-in"
-        ><mat-icon>login</mat-icon> Sign in to your team</a
-      >
+      @if (session.isSignedIn()) {
+        <a matButton="filled" routerLink="/teams"><mat-icon>groups</mat-icon> Open your teams</a>
+      } @else {
+        <a matButton="filled" routerLink="/sign-in"
+          ><mat-icon>login</mat-icon> Sign in to your team</a
+        >
+      }
     </section>
     <section class="cards" aria-label="How a plan comes together">
       @for (step of steps; track step.title) {
@@ -63,6 +69,7 @@ import { RouterLink } from '@angular/router';
   `,
 })
 export class Home {
+  protected readonly session = inject(AuthSession);
   protected readonly steps = [
     {
       icon: 'timeline',
