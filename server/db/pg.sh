@@ -15,7 +15,7 @@ set -euo pipefail
 root=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
 port=${RAMPART_PG_PORT:-54329}
 password=${RAMPART_PG_PASSWORD:-rampart-local}
-dir=${RAMPART_PG_DIR:-$root/.data/pg}
+dir=$(realpath -m "${RAMPART_PG_DIR:-$root/.data/pg}")
 
 say() { printf '[db] %s\n' "$*" >&2; }
 die() { printf '[db] error: %s\n' "$*" >&2; exit 1; }
@@ -45,7 +45,8 @@ ensure_binaries() {
 }
 
 if [ "$(id -u)" = 0 ]; then
-  as_db() { runuser -u postgres -- "$@"; }
+  # From /: the server user may not be allowed into the current folder.
+  as_db() { (cd / && runuser -u postgres -- "$@"); }
   dbuser=postgres
 else
   as_db() { "$@"; }

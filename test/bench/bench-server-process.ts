@@ -10,6 +10,13 @@ export interface Stats {
   loopP50Ms: number;
   loopP99Ms: number;
   loopMaxMs: number;
+  /** Synchronous time in the `plan:sync` handler per message (decode, apply, broadcast). */
+  syncHandlerP50Ms: number;
+  syncHandlerP99Ms: number;
+  syncMessages: number;
+  /** Client send stamp → start of the server's handler (client egress, loopback, queueing). */
+  inboundP50Ms: number;
+  inboundP99Ms: number;
   rssMb: number;
   heapMb: number;
   rooms: number;

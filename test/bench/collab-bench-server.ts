@@ -7,17 +7,46 @@
  */
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { monitorEventLoopDelay } from 'node:perf_hooks';
+import { createHistogram, monitorEventLoopDelay } from 'node:perf_hooks';
 import { createInterface } from 'node:readline';
 
+import * as decoding from 'lib0/decoding';
 import { Server as SocketServer } from 'socket.io';
+import * as Y from 'yjs';
 
+import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 import { MAX_PACKET_BYTES } from '@rampart/collab/sync/limits';
+import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
+import { toBytes } from '@rampart/collab/sync/wire-codec';
 
 import { attachCollab, type CollabRelay } from '../../server/collab/attach-collab';
 import { openDatabase } from '../../server/data-access/data-source';
 import { silentLogger } from '../../server/logger';
 import { attachBareRelay } from './bare-relay';
+import { benchNow } from './collab-client-protocol';
+
+/**
+ * The send time a benchmark client stamped into an update frame (`bench` map value, a
+ * `benchNow()` reading), or null for any other message.
+ */
+function sendStamp(payload: unknown): number | null {
+  const bytes = toBytes(payload);
+  if (!bytes || bytes[0] !== MessageType.Sync || bytes[1] !== SyncStep.Update) return null;
+  try {
+    const d = decoding.createDecoder(bytes);
+    decoding.readVarUint(d);
+    decoding.readVarUint(d);
+    for (const s of Y.decodeUpdate(decoding.readVarUint8Array(d)).structs) {
+      if (!(s instanceof Y.Item) || !(s.content instanceof Y.ContentAny)) continue;
+      const value: unknown = s.content.arr[0];
+      // Stamps are epoch milliseconds; anything smaller is not one.
+      if (typeof value === 'number' && value > 1e12) return value;
+    }
+  } catch {
+    // A message the relay rejected: not a probe.
+  }
+  return null;
+}
 
 async function main(): Promise<void> {
   const mode = process.env['MODE'] === 'bare' ? 'bare' : 'full';
@@ -44,6 +73,26 @@ async function main(): Promise<void> {
   } else {
     attachBareRelay(io);
   }
+  // Time spent synchronously in the relay's `plan:sync` handler, per message: decode, checks,
+  // apply and the broadcast to the room (the relay emits in the same tick; the COMMIT and the
+  // sender's ack come later and are not counted). This listener runs after the relay's own
+  // connection listener, so it can wrap the handler the relay just registered.
+  const handler = createHistogram();
+  const inbound = createHistogram();
+  io.of(PLAN_NAMESPACE).on('connection', (socket) => {
+    for (const relayHandler of socket.listeners('plan:sync')) {
+      socket.off('plan:sync', relayHandler);
+      socket.on('plan:sync', (...args: unknown[]) => {
+        const entry = benchNow();
+        const t = performance.now();
+        (relayHandler as (...a: unknown[]) => void)(...args);
+        handler.record(Math.max(1, Math.round((performance.now() - t) * 1000)));
+        // Outside the timed part: the benchmark's send stamp, to split client → server time.
+        const stamp = sendStamp(args[1]);
+        if (stamp !== null) inbound.record(Math.max(1, Math.round((entry - stamp) * 1000)));
+      });
+    }
+  });
   await new Promise<void>((r) => httpServer.listen(0, '127.0.0.1', () => r()));
   const loop = monitorEventLoopDelay({ resolution: 10 });
   loop.enable();
@@ -53,6 +102,8 @@ async function main(): Promise<void> {
   lines.on('line', (line) => {
     if (line === 'reset') {
       loop.reset();
+      handler.reset();
+      inbound.reset();
       cpu = process.cpuUsage();
       wall = performance.now();
     }
@@ -63,6 +114,11 @@ async function main(): Promise<void> {
       loopP50Ms: loop.percentile(50) / 1e6,
       loopP99Ms: loop.percentile(99) / 1e6,
       loopMaxMs: loop.max / 1e6,
+      syncHandlerP50Ms: handler.count ? handler.percentile(50) / 1000 : 0,
+      syncHandlerP99Ms: handler.count ? handler.percentile(99) / 1000 : 0,
+      syncMessages: handler.count,
+      inboundP50Ms: inbound.count ? inbound.percentile(50) / 1000 : 0,
+      inboundP99Ms: inbound.count ? inbound.percentile(99) / 1000 : 0,
       rssMb: mem.rss / 1e6,
       heapMb: mem.heapUsed / 1e6,
       rooms: relay?.registry.size ?? 0,

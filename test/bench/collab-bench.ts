@@ -4,7 +4,9 @@
  * asserts nothing. Needs TEST_DATABASE_URL (the throwaway cluster `npm test` starts; see
  * DEVELOPERS.md). Scale with flags, e.g. `npm run bench:collab -- --observers=300 --seconds=5`:
  *   --editors=100 --rooms=20 --observers=1000 --presence=500 --open-rooms=500
- *   --log-updates=10000 --seconds=8
+ *   --log-updates=10000 --seconds=8 --workers=3 --decode-every=20 --commits=100
+ * Clients run in `--workers` forked processes (`collab-client-worker.ts`), each relay server in
+ * its own process, PostgreSQL in its own; latencies use a clock comparable across processes.
  */
 import * as Y from 'yjs';
 
@@ -17,6 +19,10 @@ import { TestPlanClient } from '../utils/collab-client';
 import { createPlanRow } from '../utils/collab-test-server';
 import { createTestDatabase } from '../utils/test-database';
 import { BenchServer } from './bench-server-process';
+import { ClientPool } from './collab-client-pool';
+import { benchNow, type ClientSpec, type WorkerResult } from './collab-client-protocol';
+import { printReport } from './collab-bench-report';
+import { machineCpuMeter } from './collab-machine-cpu';
 
 function flag(name: string, fallback: number): number {
   const arg = process.argv.find((a) => a.startsWith(`--${name}=`));
@@ -30,6 +36,9 @@ const PRESENCE = flag('presence', 500);
 const OPEN_ROOMS = flag('open-rooms', 500);
 const LOG_UPDATES = flag('log-updates', 10_000);
 const SECONDS = flag('seconds', 8);
+const WORKERS = flag('workers', 3);
+const DECODE_EVERY = flag('decode-every', 20);
+const COMMITS = flag('commits', 100);
 
 function percentile(sorted: number[], p: number): number {
   if (sorted.length === 0) return Number.NaN;
@@ -41,140 +50,171 @@ function summary(samples: number[]): { p50: number; p99: number; n: number } {
   return { p50: percentile(sorted, 50), p99: percentile(sorted, 99), n: sorted.length };
 }
 
-const ms = (v: number) => `${v.toFixed(2)} ms`;
-
-/** Connects clients 50 at a time (a thousand simultaneous handshakes only measure the queue). */
-async function connectAll(clients: TestPlanClient[]): Promise<void> {
-  for (let i = 0; i < clients.length; i += 50) {
-    const batch = clients.slice(i, i + 50);
-    for (const c of batch) c.socket.connect();
-    await Promise.all(batch.map((c) => c.ready(60_000)));
-  }
-}
-
-/** A benchmark client; it connects when `connectAll` says so. */
-function benchClient(url: string, user: string, planId: string): TestPlanClient {
-  return new TestPlanClient(url, user, planId, { autoConnect: false });
-}
-
-/** Watches `bench` map changes made by others and records edit → apply latency. */
-function measureLatency(client: TestPlanClient, samples: number[]): void {
-  client.doc.getMap<number>('bench').observe((event) => {
-    if (event.transaction.local) return;
-    const now = performance.now();
-    for (const key of event.keysChanged) {
-      if (key === client.userId) continue;
-      samples.push(now - client.doc.getMap<number>('bench').get(key)!);
-    }
-  });
-}
-
 async function sleep(msDelay: number): Promise<void> {
   await new Promise((r) => setTimeout(r, msDelay));
 }
 
-/** Scenario: editors spread over rooms, each editing twice a second. */
-async function editors(server: BenchServer, plans: string[]) {
-  const clients = Array.from({ length: EDITORS }, (_, i) =>
-    benchClient(server.url, `e-${i}`, plans[i % plans.length]!),
-  );
-  await connectAll(clients);
-  const latency: number[] = [];
-  const ackLatency: number[] = [];
-  for (const c of clients) measureLatency(c, latency);
-  await server.stats(true);
-  const start = performance.now();
-  let edits = 0;
-  // Acks come back in send order per client, so a queue of send times pairs them.
-  const sentAt = new Map<TestPlanClient, number[]>();
-  for (const c of clients) {
-    sentAt.set(c, []);
-    c.onAcknowledged = () => {
-      const t = sentAt.get(c)!.shift();
-      if (t !== undefined) ackLatency.push(performance.now() - t);
-    };
-  }
-  const timers = clients.map((c, i) =>
-    setInterval(
-      () => {
-        const t = performance.now();
-        sentAt.get(c)!.push(t);
-        c.doc.getMap<number>('bench').set(c.userId, t);
-        edits++;
-      },
-      500 + (i % 7),
-    ),
-  );
-  await sleep(SECONDS * 1000);
-  timers.forEach(clearInterval);
-  await sleep(500);
-  const stats = await server.stats();
-  const elapsed = (performance.now() - start) / 1000;
-  clients.forEach((c) => c.close());
-  return {
-    latency: summary(latency),
-    ack: summary(ackLatency),
-    editsPerSecond: edits / elapsed,
-    stats,
+/** CPU of this (the parent) process between two calls, in cores. */
+function cpuMeter(): () => number {
+  const cpu = process.cpuUsage();
+  const wall = performance.now();
+  return () => {
+    const used = process.cpuUsage(cpu);
+    return (used.user + used.system) / 1000 / (performance.now() - wall);
   };
 }
 
-/** Scenario: one writer, many read-only observers in one room. */
-async function fanOut(server: BenchServer, planId: string) {
-  const observers = Array.from({ length: OBSERVERS }, (_, i) =>
-    benchClient(server.url, `v-${i}`, planId),
-  );
-  const writer = benchClient(server.url, 'w-0', planId);
-  await connectAll([writer, ...observers]);
-  const latency: number[] = [];
-  for (const o of observers) measureLatency(o, latency);
+/** Client-side CPU of one scenario: the sum over the workers, and the busiest worker. */
+function clientCpu(results: WorkerResult[]): { sum: number; max: number } {
+  const each = results.map((r) => r.cpuCores);
+  return { sum: each.reduce((a, b) => a + b, 0), max: Math.max(...each) };
+}
+
+/** Scenario: editors spread over rooms, each editing twice a second, in the client workers. */
+async function editors(pool: ClientPool, server: BenchServer, plans: string[]) {
+  const specs: ClientSpec[] = Array.from({ length: EDITORS }, (_, i) => ({
+    user: `e-${i}`,
+    plan: plans[i % plans.length]!,
+    mode: 'editor',
+    phase: i / EDITORS,
+  }));
+  await pool.connect(server.url, specs);
+  await sleep(300);
   await server.stats(true);
-  const timer = setInterval(
-    () => writer.doc.getMap<number>('bench').set(writer.userId, performance.now()),
-    100,
-  );
-  await sleep(Math.min(SECONDS, 5) * 1000);
+  const parentCpu = cpuMeter();
+  const machineCpu = machineCpuMeter();
+  await pool.go(SECONDS);
+  await sleep(SECONDS * 1000 + 500);
+  const results = await pool.collect();
+  const stats = await server.stats();
+  const parent = parentCpu();
+  const machine = machineCpu();
+  await pool.closeClients();
+  const edits = results.reduce((n, r) => n + r.edits, 0);
+  return {
+    latency: summary(results.flatMap((r) => r.stampLatency)),
+    ack: summary(results.flatMap((r) => r.ackLatency)),
+    editsPerSecond: edits / (SECONDS + 0.5),
+    stats,
+    clients: clientCpu(results),
+    parent,
+    machine,
+  };
+}
+
+/**
+ * Scenario: one writer (in this process) probing ten times a second, many read-only observers
+ * in one room spread over the workers. One observer in DECODE_EVERY is a full client that
+ * times each probe by the stamp it decodes; the others only record when each update frame
+ * arrives, and the k-th arrival is paired with the k-th probe sent (one writer, one ordered
+ * connection per observer).
+ */
+async function fanOut(pool: ClientPool, server: BenchServer, planId: string) {
+  const specs: ClientSpec[] = Array.from({ length: OBSERVERS }, (_, i) => ({
+    user: `v-${i}`,
+    plan: planId,
+    mode: i % DECODE_EVERY === 0 ? 'decoder' : 'arrival',
+    phase: 0,
+  }));
+  await pool.connect(server.url, specs);
+  const writer = new TestPlanClient(server.url, 'w-0', planId);
+  await writer.ready(60_000);
+  // Let the writer's own first step 2 settle before anyone records frames.
+  await sleep(500);
+  await server.stats(true);
+  const parentCpu = cpuMeter();
+  const machineCpu = machineCpuMeter();
+  const seconds = Math.min(SECONDS, 5);
+  await pool.go(seconds + 2);
+  const sentAt: number[] = [];
+  const timer = setInterval(() => {
+    const t = benchNow();
+    sentAt.push(t);
+    writer.doc.getMap<number>('bench').set(writer.userId, t);
+  }, 100);
+  await sleep(seconds * 1000);
   clearInterval(timer);
   await sleep(1000);
+  const results = await pool.collect();
   const stats = await server.stats();
-  [writer, ...observers].forEach((c) => c.close());
-  return { latency: summary(latency), stats };
+  const parent = parentCpu();
+  const machine = machineCpu();
+  writer.close();
+  await pool.closeClients();
+  const arrivalLatency: number[] = [];
+  let incomplete = 0;
+  for (const list of results.flatMap((r) => r.arrivals)) {
+    if (list.length !== sentAt.length) incomplete++;
+    for (let k = 0; k < Math.min(list.length, sentAt.length); k++) {
+      arrivalLatency.push(list[k]! - sentAt[k]!);
+    }
+  }
+  const decoders = specs.filter((s) => s.mode === 'decoder').length;
+  return {
+    decoded: summary(results.flatMap((r) => r.stampLatency)),
+    arrival: summary(arrivalLatency),
+    all: summary([...arrivalLatency, ...results.flatMap((r) => r.stampLatency)]),
+    probes: sentAt.length,
+    decoders,
+    incomplete,
+    stats,
+    clients: clientCpu(results),
+    parent,
+    machine,
+  };
 }
 
 /** Scenario: many clients moving their cursor once a second. */
-async function presence(server: BenchServer, plans: string[]) {
-  const clients = Array.from({ length: PRESENCE }, (_, i) =>
-    benchClient(server.url, `p-${i}`, plans[i % plans.length]!),
-  );
-  await connectAll(clients);
+async function presence(pool: ClientPool, server: BenchServer, plans: string[]) {
+  const specs: ClientSpec[] = Array.from({ length: PRESENCE }, (_, i) => ({
+    user: `p-${i}`,
+    plan: plans[i % plans.length]!,
+    mode: 'presence',
+    phase: i / PRESENCE,
+  }));
+  await pool.connect(server.url, specs);
   await server.stats(true);
-  const timers = clients.map((c, i) =>
-    setInterval(
-      () => {
-        c.setPresence({
-          user: { id: c.userId, name: c.userId, colour: '#14507a' },
-          cursorTime: Math.random() * 0.02,
-        });
-      },
-      1000 + (i % 13),
-    ),
-  );
+  await pool.go(SECONDS);
   await sleep(SECONDS * 1000);
-  timers.forEach(clearInterval);
+  const results = await pool.collect();
   const stats = await server.stats();
-  clients.forEach((c) => c.close());
-  return { stats };
+  await pool.closeClients();
+  return { stats, clients: clientCpu(results) };
 }
 
 /** Scenario: many rooms open at once, each holding the demo plan. */
-async function openRooms(server: BenchServer, plans: string[]) {
+async function openRooms(pool: ClientPool, server: BenchServer, plans: string[]) {
   const before = await server.stats();
-  const clients = plans.map((p, i) => benchClient(server.url, `o-${i}`, p));
-  await connectAll(clients);
+  const specs: ClientSpec[] = plans.map((plan, i) => ({
+    user: `o-${i}`,
+    plan,
+    mode: 'idle',
+    phase: 0,
+  }));
+  await pool.connect(server.url, specs);
   await sleep(1000);
   const after = await server.stats();
-  clients.forEach((c) => c.close());
+  await pool.closeClients();
   return { before, after };
+}
+
+/**
+ * PostgreSQL alone: one small update appended and committed at a time (what one edit's durable
+ * ack waits for at least, without the relay or any client).
+ */
+async function commitLatency(repo: PlanDocumentRepository, planId: string) {
+  const doc = new Y.Doc();
+  const updates: Uint8Array[] = [];
+  doc.on('update', (u: Uint8Array) => updates.push(u));
+  const times: number[] = [];
+  for (let i = 0; i < COMMITS; i++) {
+    doc.getMap<number>('bench').set('commit', i);
+    const t = performance.now();
+    await repo.append(planId, [{ update: updates.pop()!, authorId: null }]);
+    times.push(performance.now() - t);
+  }
+  doc.destroy();
+  return summary(times);
 }
 
 /** Scenario: a plan with a long update log, loaded before and after compaction. */
@@ -233,6 +273,7 @@ async function main(): Promise<void> {
     started.push(server);
     return server;
   };
+  const pool = ClientPool.start(WORKERS);
   const { dataSource } = await openDatabase(database.url);
   try {
     const repo = new PlanDocumentRepository(dataSource);
@@ -251,84 +292,59 @@ async function main(): Promise<void> {
     const presencePlans = await mk(Math.max(1, Math.ceil(PRESENCE / 10)), 'presence', true);
     const roomPlans = await mk(OPEN_ROOMS, 'open-rooms', true);
     const [logPlan] = await mk(1, 'long-log', false);
-    const cpus = (await import('node:os')).cpus().length;
-    console.log(
-      `collab bench: ${cpus} cores, Node ${process.version}; server in its own process; clients in this one`,
-    );
+    const [commitPlan] = await mk(1, 'commit', false);
+    const os = await import('node:os');
+    const clock = await pool.clockSkew();
+    const header = {
+      cores: os.cpus().length,
+      workers: pool.size,
+      decodeEvery: DECODE_EVERY,
+      loadAtStart: os.loadavg(),
+      clock,
+    };
 
+    const commits = await commitLatency(repo, commitPlan!);
+
+    // Both relays stay up and the scenarios alternate between them, so a change in the load of
+    // the shared machine during the run hits both sides about equally (an idle relay costs
+    // nothing).
     const bare = track(await BenchServer.start('bare', database.url));
-    const bareEditors = await editors(bare, bareEditorPlans);
-    const bareFan = await fanOut(bare, 'bare-fan-out');
-    await bare.stop();
-
     const full = track(await BenchServer.start('full', database.url));
-    const fullEditors = await editors(full, editorPlans);
-    const fullFan = await fanOut(full, fanPlan!);
-    const fullPresence = await presence(full, presencePlans);
+    const bareEditors = await editors(pool, bare, bareEditorPlans);
+    const fullEditors = await editors(pool, full, editorPlans);
+    const bareFan = await fanOut(pool, bare, 'bare-fan-out');
+    const fullFan = await fanOut(pool, full, fanPlan!);
+    await bare.stop();
+    const fullPresence = await presence(pool, full, presencePlans);
     await full.stop();
 
     const fresh = track(await BenchServer.start('full', database.url));
-    const rooms = await openRooms(fresh, roomPlans);
+    const rooms = await openRooms(pool, fresh, roomPlans);
     await fresh.stop();
 
     const log = await longLog(repo, logPlan!);
-
-    const line = (label: string, value: string, target = '') =>
-      console.log(`${label.padEnd(58)} ${value.padEnd(34)} ${target}`);
-    console.log('');
-    line(
-      `${EDITORS} editors / ${ROOMS} rooms, edit → remote apply (full)`,
-      `p50 ${ms(fullEditors.latency.p50)}  p99 ${ms(fullEditors.latency.p99)}`,
-      'target p99 ≤ 15 ms',
-    );
-    line(
-      '  same, bare relay',
-      `p50 ${ms(bareEditors.latency.p50)}  p99 ${ms(bareEditors.latency.p99)}`,
-    );
-    line(
-      '  overhead ratio full / bare (p50, p99)',
-      `${(fullEditors.latency.p50 / bareEditors.latency.p50).toFixed(2)}×  ${(fullEditors.latency.p99 / bareEditors.latency.p99).toFixed(2)}×`,
-    );
-    line(
-      '  edit → durable ack (full)',
-      `p50 ${ms(fullEditors.ack.p50)}  p99 ${ms(fullEditors.ack.p99)}`,
-    );
-    line(
-      '  edits stored per second (full)',
-      `${fullEditors.editsPerSecond.toFixed(0)} /s (${fullEditors.latency.n} applies)`,
-    );
-    line(
-      '  server CPU / event-loop delay p99 (full)',
-      `${fullEditors.stats.cpuCores.toFixed(2)} cores / ${ms(fullEditors.stats.loopP99Ms)}`,
-    );
-    line(
-      `1 writer → ${OBSERVERS} read-only observers (full)`,
-      `p50 ${ms(fullFan.latency.p50)}  p99 ${ms(fullFan.latency.p99)}`,
-      'target p99 ≤ 50 ms',
-    );
-    line('  same, bare relay', `p50 ${ms(bareFan.latency.p50)}  p99 ${ms(bareFan.latency.p99)}`);
-    line(
-      '  overhead ratio full / bare (p99)',
-      `${(fullFan.latency.p99 / bareFan.latency.p99).toFixed(2)}×`,
-    );
-    line(
-      '  server CPU / event-loop delay p99 (full)',
-      `${fullFan.stats.cpuCores.toFixed(2)} cores / ${ms(fullFan.stats.loopP99Ms)}`,
-    );
-    line(
-      `${PRESENCE} clients sending presence at 1 Hz: server CPU`,
-      `${fullPresence.stats.cpuCores.toFixed(2)} cores (loop p99 ${ms(fullPresence.stats.loopP99Ms)})`,
-      'target < 0.5 core',
-    );
-    line(
-      `${OPEN_ROOMS} open rooms (demo plan each): server RSS`,
-      `${rooms.after.rssMb.toFixed(0)} MB (${rooms.after.rooms} rooms; ${(((rooms.after.rssMb - rooms.before.rssMb) * 1000) / OPEN_ROOMS).toFixed(0)} kB/room)`,
-      'target < 500 MB',
-    );
-    line(`plan with ${LOG_UPDATES} logged updates: load before compaction`, ms(log.beforeMs));
-    line('  compaction', `${ms(log.compactMs)} (${log.merged} rows → ${log.stateBytes} bytes)`);
-    line('  load after compaction (median of 5)', ms(log.afterMs), 'target ≤ 200 ms');
+    printReport({
+      header,
+      loadAtEnd: os.loadavg(),
+      sizes: {
+        editors: EDITORS,
+        rooms: ROOMS,
+        observers: OBSERVERS,
+        presence: PRESENCE,
+        openRooms: OPEN_ROOMS,
+        logUpdates: LOG_UPDATES,
+      },
+      commits,
+      bareEditors,
+      fullEditors,
+      bareFan,
+      fullFan,
+      fullPresence,
+      rooms,
+      log,
+    });
   } finally {
+    pool.stop();
     await Promise.all(started.map((s) => s.stop()));
     await dataSource.destroy();
     await database.drop();

@@ -28,7 +28,11 @@ describe('app shell in Chromium', () => {
       // Signed out, `GET /api/auth/me` answers 401 by contract; Chromium logs that as a failed load.
       if (m.type() === 'error' && !/401/.test(m.text())) consoleErrors.push(m.text());
     });
-    page.on('requestfailed', (r) => failed.push(r.url()));
+    page.on('requestfailed', (r) => {
+      // A request the app itself cancels (a poll superseded by the next one) is not a failure.
+      if (r.failure()?.errorText !== 'net::ERR_ABORTED')
+        failed.push(`${r.failure()?.errorText} ${r.url()}`);
+    });
     page.on('response', (r) => {
       const signedOutProbe = r.status() === 401 && new URL(r.url()).pathname === '/api/auth/me';
       if (r.status() >= 400 && !signedOutProbe) failed.push(`${r.status()} ${r.url()}`);

@@ -14,6 +14,13 @@ import { mergeChunks, runMonteCarloChunk, slotSamples, type MonteCarloChunk } fr
 import type { MonteCarloRequirementSummary, MonteCarloSummary } from './result-types';
 import { summarize } from './statistics';
 
+/**
+ * Monte Carlo keeps only margins, and those are measured on the accepted steps (`netWave`), so
+ * each run asks for the smallest evenly spaced output the simulator accepts instead of
+ * resampling the plan's `outputPoints` that no one reads.
+ */
+const MEASURE_ONLY_OUTPUT_POINTS = 2;
+
 export interface PlanMonteCarloOptions {
   runs: number;
   seed: number;
@@ -63,7 +70,14 @@ export function planMonteCarloChunk(
         const measures = measureCase(
           prep,
           c,
-          simulateCase(prep, c, valuesAt(prep, c, x, y), simulate),
+          simulateCase(
+            prep,
+            c,
+            valuesAt(prep, c, x, y),
+            simulate,
+            false,
+            MEASURE_ONLY_OUTPUT_POINTS,
+          ),
         );
         for (const m of measures) out.push(m.margin ?? Number.NaN, m.relativeMargin ?? Number.NaN);
       }

@@ -99,6 +99,8 @@ export function netWave(sim: SimResult, net: string): SampledWaveform | undefine
 /**
  * Simulates a case; errors are rethrown naming the scenario, temperature and corner.
  * @param allNets report every net (nominal runs, closed-form checks); otherwise only signal nets.
+ * @param outputPoints evenly spaced output points; default the plan's. Measurements read the
+ *   accepted steps (`netWave`), so a caller that only measures may ask for as few as 2.
  */
 export function simulateCase(
   prep: PreparedPlan,
@@ -106,6 +108,7 @@ export function simulateCase(
   values: ReadonlyMap<string, number>,
   simulate: SimulateFn,
   allNets = false,
+  outputPoints = prep.settings.outputPoints,
 ): CaseRun {
   const netlist = buildNetlist(prep.plan, c, values);
   const probes = allNets ? undefined : [...new Set(prep.plan.signals.map((s) => s.net))];
@@ -113,7 +116,7 @@ export function simulateCase(
   try {
     sim = simulate(netlist, {
       tStop: c.tStop,
-      outputPoints: prep.settings.outputPoints,
+      outputPoints,
       keepSteps: true,
       ...(probes === undefined ? {} : { probes }),
     });

@@ -30,6 +30,16 @@ function isSource(m: ElementModel): m is SourceModel {
   return 'corners' in m;
 }
 
+/** How a circuit is compiled. */
+export interface CompileOptions {
+  /**
+   * Solve networks made only of linear parts once per step and keep their matrix while the step
+   * is unchanged (`LinearStepper`). Results are bit-identical either way; turning it off is for
+   * checking exactly that. @default true
+   */
+  linearFastPath?: boolean;
+}
+
 /** A validated circuit ready to be simulated repeatedly. */
 export class CompiledCircuit {
   /** Every net, ground first. */
@@ -40,7 +50,10 @@ export class CompiledCircuit {
   private readonly runner: TransientRunner;
   private readonly signature: string[];
 
-  constructor(private netlist: Netlist) {
+  constructor(
+    private netlist: Netlist,
+    options: CompileOptions = {},
+  ) {
     this.topo = validateNetlist(netlist);
     this.nets = [GROUND, ...this.topo.nodeNames];
     this.netSet = new Set(this.nets);
@@ -54,6 +67,7 @@ export class CompiledCircuit {
       behavioural: this.models.filter(isBehavioural),
       sources: this.models.filter(isSource),
       solver,
+      linearFastPath: options.linearFastPath ?? true,
     });
   }
 
@@ -144,6 +158,6 @@ function signatureOf(el: Netlist['elements'][number]): string {
 }
 
 /** Validates and compiles `netlist` for repeated runs (see `CompiledCircuit.run`). */
-export function compile(netlist: Netlist): CompiledCircuit {
-  return new CompiledCircuit(netlist);
+export function compile(netlist: Netlist, options?: CompileOptions): CompiledCircuit {
+  return new CompiledCircuit(netlist, options);
 }

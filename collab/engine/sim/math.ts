@@ -31,3 +31,19 @@ export function limitedExpSlope(x: number): number {
  * 1 GΩ, well above the pivot threshold even with the stiff instantaneous re-solve.
  */
 export const OPEN_LEAK = 1e-9;
+
+/** Copies src into dst; a plain loop beats `TypedArray.set` on a few tens of entries. */
+export function copyInto(dst: Float64Array, src: Float64Array): void {
+  for (let i = 0; i < src.length; i++) dst[i] = src[i];
+}
+
+/**
+ * ratio^(−1/(order + 1)), the step factor from an error ratio: square and cube roots for the
+ * first- and second-order formulas, since `Math.pow` with a fractional exponent is several
+ * times slower and this runs on every step.
+ */
+export function inverseRoot(ratio: number, order: number): number {
+  if (order === 1) return 1 / Math.sqrt(ratio);
+  if (order === 2) return 1 / Math.cbrt(ratio);
+  return Math.pow(ratio, -1 / (order + 1));
+}

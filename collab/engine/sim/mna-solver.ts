@@ -53,6 +53,20 @@ export class MnaSolver implements MnaSystem {
     this.rhs.fill(0);
   }
 
+  /** Zeroes the right-hand side only; the matrix keeps its last assembly. */
+  clearRhs(): void {
+    this.rhs.fill(0);
+  }
+
+  /**
+   * Solves with the current factors, without assembling or comparing the matrix. Only valid
+   * right after a `solve` whose matrix the caller knows is unchanged (linear network, same step
+   * length and method).
+   */
+  solveFactored(x: Float64Array): void {
+    this.lu.solve(this.rhs, x);
+  }
+
   resetCount(): void {
     this.factorisations = 0;
     this.valid = false;

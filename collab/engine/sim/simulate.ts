@@ -9,6 +9,7 @@ import type { Netlist, SimOptions, SimResult } from '../netlist';
 import { compile } from './compile';
 
 export { compile, CompiledCircuit, SIM_DEFAULTS } from './compile';
+export type { CompileOptions } from './compile';
 export { findCrossings } from './crossings';
 export type { Crossing, CrossingDirection } from './crossings';
 export {

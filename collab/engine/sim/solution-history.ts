@@ -31,9 +31,17 @@ export class SolutionHistory {
     this.scale = new Float64Array(width);
   }
 
-  /** Forgets the per-node scales (start of a run). */
-  resetScale(): void {
+  private reltol = 1e-4;
+  private vntol = 1e-6;
+
+  /**
+   * Starts a run: forgets the per-node scales and takes the run's tolerances (kept here rather
+   * than passed on every step, where each number argument would be boxed).
+   */
+  startRun(reltol: number, vntol: number): void {
     this.scale.fill(0);
+    this.reltol = reltol;
+    this.vntol = vntol;
   }
 
   clear(): void {
@@ -42,12 +50,18 @@ export class SolutionHistory {
   }
 
   push(t: number, x: Float64Array): void {
-    for (let i = 0; i < this.width; i++) {
-      const a = Math.abs(x[i]);
-      if (a > this.scale[i]) this.scale[i] = a;
+    const w = this.width;
+    const base = this.head * w;
+    const values = this.values;
+    const scale = this.scale;
+    // One loop, no `subarray` view: this runs on every accepted step.
+    for (let i = 0; i < w; i++) {
+      const xi = x[i];
+      const a = Math.abs(xi);
+      if (a > scale[i]) scale[i] = a;
+      values[base + i] = xi;
     }
     this.times[this.head] = t;
-    this.values.set(x.subarray(0, this.width), this.head * this.width);
     this.head = (this.head + 1) % DEPTH;
     if (this.count < DEPTH) this.count++;
   }
@@ -61,13 +75,8 @@ export class SolutionHistory {
    * Largest ratio error/tolerance over the node voltages for candidate x at time t, for a step
    * taken with `method`; 0 when too few points are stored for an estimate.
    */
-  errorRatio(
-    x: Float64Array,
-    t: number,
-    method: IntegrationMethod,
-    reltol: number,
-    vntol: number,
-  ): number {
+  errorRatio(x: Float64Array, t: number, method: IntegrationMethod): number {
+    const { reltol, vntol } = this;
     const need = method.order + 1;
     if (this.count < need) return 0;
     const w = this.width;
@@ -79,6 +88,9 @@ export class SolutionHistory {
     const s2 = need > 2 ? this.slot(2) * w : 0;
     const h = t - t0;
     const v = this.values;
+    // Both formulas' error is linear in |divided difference|: one call gives the factor, and
+    // factor·|dd| is bit-for-bit what the call would return for each node.
+    const factor = method.truncationError(h, 1);
     let worst = 0;
     this.worst = -1;
     for (let i = 0; i < w; i++) {
@@ -92,7 +104,7 @@ export class SolutionHistory {
         dd = (dd2 - (d1 - d2) / (t0 - t2)) / (t - t2);
       }
       const tol = reltol * Math.max(Math.abs(xn), this.scale[i]) + vntol;
-      const r = method.truncationError(h, dd) / tol;
+      const r = (factor * Math.abs(dd)) / tol;
       if (r > worst) {
         worst = r;
         this.worst = i;
@@ -108,8 +120,9 @@ export class SolutionHistory {
    * points. Output and crossings are interpolated linearly, so this, not the integration error,
    * limits steps on strongly curved waveforms. Infinity with fewer than three points.
    */
-  interpolationLimit(reltol: number, vntol: number): number {
+  interpolationLimit(): number {
     if (this.count < 3) return Infinity;
+    const { reltol, vntol } = this;
     const w = this.width;
     const s0 = this.slot(0);
     const s1 = this.slot(1);
@@ -128,9 +141,10 @@ export class SolutionHistory {
       if (curvature === 0) continue;
       const tol =
         INTERPOLATION_TOL_FACTOR * (reltol * Math.max(Math.abs(x0), this.scale[i]) + vntol);
-      const h = Math.sqrt((8 * tol) / curvature);
-      if (h < limit) limit = h;
+      // The square root is monotonic, so it is taken once, of the smallest h².
+      const h2 = (8 * tol) / curvature;
+      if (h2 < limit) limit = h2;
     }
-    return limit;
+    return Math.sqrt(limit);
   }
 }

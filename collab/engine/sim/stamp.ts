@@ -67,6 +67,25 @@ export interface ElementModel {
   accept(x: Float64Array, c: StepContext): void;
 }
 
+/**
+ * A part whose matrix entries depend only on its loaded values and the integration coefficient
+ * `c.method.coefficient(c.h)` (resistors, capacitors, inductors, independent sources). When
+ * every part is linear and that coefficient is unchanged, the loop keeps the assembled matrix
+ * and its LU factors and has each part add only its right-hand side.
+ */
+export interface LinearModel extends ElementModel {
+  /**
+   * Adds exactly the right-hand-side terms `stamp` would add at `c`, in the same order, and
+   * updates the same internal state; the matrix is left alone.
+   */
+  stampRhs(s: MnaSystem, c: StepContext): void;
+}
+
+/** Whether `m` can add its right-hand side alone (see `LinearModel`). */
+export function isLinearModel(m: ElementModel): m is LinearModel {
+  return 'stampRhs' in m;
+}
+
 /** A part with discrete state: comparators, regulators, supervisors. */
 export interface BehaviouralModel extends ElementModel {
   /** Number of threshold functions the transient loop watches for sign changes. */

@@ -18,7 +18,11 @@ export class StepRecorder {
   push(t: number, x: Float64Array): void {
     if (this.count === this.times.length) this.grow();
     this.times[this.count] = t;
-    this.values.set(x.subarray(0, this.width), this.count * this.width);
+    // A plain loop: `subarray` would allocate a view on every accepted step.
+    const w = this.width;
+    const base = this.count * w;
+    const values = this.values;
+    for (let i = 0; i < w; i++) values[base + i] = x[i];
     this.count++;
   }
 

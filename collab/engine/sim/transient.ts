@@ -9,9 +9,17 @@ import { ConvergenceError, TimestepUnderflowError } from './errors';
 import { backwardEuler } from './integration/backward-euler';
 import type { IntegrationMethod } from './integration/integration-method';
 import { trapezoidal } from './integration/trapezoidal';
+import { LinearStepper } from './linear-stepper';
+import { copyInto, inverseRoot } from './math';
 import type { MnaSolver } from './mna-solver';
 import { SolutionHistory } from './solution-history';
-import type { BehaviouralModel, ElementModel, SourceModel, StepContext } from './stamp';
+import {
+  isLinearModel,
+  type BehaviouralModel,
+  type ElementModel,
+  type SourceModel,
+  type StepContext,
+} from './stamp';
 import { StepRecorder } from './step-recorder';
 
 /** Options after defaults are applied. */
@@ -56,6 +64,8 @@ export interface CircuitParts {
   readonly behavioural: readonly BehaviouralModel[];
   readonly sources: readonly SourceModel[];
   readonly solver: MnaSolver;
+  /** Use the linear-network path when every part allows it; default true (tests turn it off). */
+  readonly linearFastPath?: boolean;
 }
 
 export class TransientRunner {
@@ -68,6 +78,8 @@ export class TransientRunner {
   private readonly watchOwner: Int32Array;
   private readonly watchIndex: Int32Array;
   private readonly smooth: boolean;
+  /** Set when every part is linear: one exact solve per step, matrix kept (see LinearStepper). */
+  private readonly linear: LinearStepper | null;
   private readonly ctx: StepContext = { t: 0, h: 1, method: backwardEuler, left: false };
   private s: TransientSettings = { tStop: 1, maxStep: 1, reltol: 1e-4, vntol: 1e-6 };
   private breakpoints: number[] = [];
@@ -94,6 +106,11 @@ export class TransientRunner {
     this.watchIndex = Int32Array.from(indices);
     this.gStart = new Float64Array(owners.length);
     this.smooth = c.models.some((m) => m.nonlinear);
+    const linear = c.models.filter(isLinearModel);
+    this.linear =
+      linear.length === c.models.length && c.linearFastPath !== false
+        ? new LinearStepper(linear, c.solver)
+        : null;
   }
 
   private freshStats(): TransientStats {
@@ -106,8 +123,9 @@ export class TransientRunner {
     this.events = [];
     this.stats = this.freshStats();
     this.c.solver.resetCount();
+    this.linear?.reset();
     this.recorder.clear();
-    this.history.resetScale();
+    this.history.startRun(settings.reltol, settings.vntol);
     for (const m of this.c.models) m.reset();
     this.collectBreakpoints();
     this.x.fill(0);
@@ -166,7 +184,8 @@ export class TransientRunner {
       }
       const tEnd = landed ? tBp : t + hTry;
       const method: IntegrationMethod = this.history.count >= 3 ? trapezoidal : backwardEuler;
-      this.x.set(this.xAccepted);
+      // Newton starts from the last accepted point; a linear solve needs no starting point.
+      if (this.linear === null) copyInto(this.x, this.xAccepted);
       if (!this.newton(tEnd, hTry, method, landed)) {
         this.stats.rejectedSteps++;
         retry = true;
@@ -174,7 +193,7 @@ export class TransientRunner {
         if (h < hMin) throw new ConvergenceError(tEnd, this.unsettledParts());
         continue;
       }
-      const tCross = this.earliestCrossing(t, hTry);
+      const tCross = this.gStart.length > 0 ? this.earliestCrossing(t, hTry) : Infinity;
       if (tCross < Infinity) {
         const tol = EVENT_RELTOL * Math.max(tCross, hMin);
         if (tEnd - tCross > tol && aims < MAX_AIMS) {
@@ -185,8 +204,8 @@ export class TransientRunner {
           continue;
         }
       }
-      const ratio = this.history.errorRatio(this.x, tEnd, method, this.s.reltol, this.s.vntol);
-      const shrink = ratio > 0 ? 0.9 * Math.pow(ratio, -1 / (method.order + 1)) : MAX_GROWTH;
+      const ratio = this.history.errorRatio(this.x, tEnd, method);
+      const shrink = ratio > 0 ? 0.9 * inverseRoot(ratio, method.order) : MAX_GROWTH;
       if (ratio > 1) {
         this.stats.rejectedSteps++;
         retry = true;
@@ -207,7 +226,7 @@ export class TransientRunner {
         // After a located crossing that changed no stamp (a delayed output), resume the step
         // length used before aiming instead of growing from the short aimed step.
         h = aimed ? hBeforeAim : hTry * Math.min(MAX_GROWTH, shrink);
-        h = Math.min(h, this.history.interpolationLimit(this.s.reltol, this.s.vntol));
+        h = Math.min(h, this.history.interpolationLimit());
         // Small growth is not worth a new LU factorisation: keep the step (and the factors).
         if (h > hTry && h < MIN_GROWTH * hTry && !landed) h = hTry;
       }
@@ -224,7 +243,7 @@ export class TransientRunner {
     this.stats.acceptedSteps++;
     this.recorder.push(t, this.x);
     this.history.push(t, this.x);
-    this.xAccepted.set(this.x);
+    copyInto(this.xAccepted, this.x);
   }
 
   /** Discrete updates at an accepted time; true if something jumped (re-solved). */
@@ -321,6 +340,11 @@ export class TransientRunner {
     ctx.h = h;
     ctx.method = method;
     ctx.left = left;
+    if (this.linear !== null) {
+      this.linear.solve(this.x, this.xNew, ctx);
+      this.stats.newtonIterations++;
+      return this.takeIterate(size);
+    }
     const reltol = this.s.reltol;
     for (let iter = 0; iter < MAX_NEWTON; iter++) {
       solver.clear();
@@ -331,6 +355,8 @@ export class TransientRunner {
       for (let i = 0; i < size; i++) {
         const a = this.xNew[i];
         if (!Number.isFinite(a)) return false;
+        // Without smooth nonlinearities the update size decides nothing (see the return below).
+        if (!this.smooth) continue;
         const tol =
           reltol * Math.max(Math.abs(a), Math.abs(this.x[i])) +
           (i < nodeCount ? this.s.vntol : ABSTOL);
@@ -344,6 +370,15 @@ export class TransientRunner {
       if (settled && (!this.smooth || (iter > 0 && small))) return true;
     }
     return false;
+  }
+
+  /** Makes the solve in xNew the iterate, unless it is not finite. */
+  private takeIterate(size: number): boolean {
+    const xNew = this.xNew;
+    for (let i = 0; i < size; i++) if (!Number.isFinite(xNew[i])) return false;
+    this.xNew = this.x;
+    this.x = xNew;
+    return true;
   }
 
   private unsettledParts(): string[] {

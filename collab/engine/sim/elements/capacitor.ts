@@ -1,11 +1,11 @@
 import type { Element } from '../../netlist';
-import { type ElementModel, type MnaSystem, type StepContext } from '../stamp';
+import { type LinearModel, type MnaSystem, type StepContext } from '../stamp';
 
 /**
  * Capacitor companion model: i(t+h) = geq·v(t+h) − ieq with geq = C·a0 and
  * ieq = C·history, from the integration method in use.
  */
-export class CapacitorModel implements ElementModel {
+export class CapacitorModel implements LinearModel {
   readonly nonlinear = false;
   readonly nodes: readonly number[];
   private c = 0;
@@ -39,6 +39,12 @@ export class CapacitorModel implements ElementModel {
     this.geq = this.c * ctx.method.coefficient(ctx.h);
     this.ieq = this.c * ctx.method.history(ctx.h, this.v, this.i / this.c);
     s.addConductance(this.a, this.b, this.geq);
+    s.addCurrent(this.b, this.a, this.ieq);
+  }
+
+  stampRhs(s: MnaSystem, ctx: StepContext): void {
+    this.geq = this.c * ctx.method.coefficient(ctx.h);
+    this.ieq = this.c * ctx.method.history(ctx.h, this.v, this.i / this.c);
     s.addCurrent(this.b, this.a, this.ieq);
   }
 

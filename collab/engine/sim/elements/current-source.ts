@@ -1,9 +1,9 @@
 import type { Element, SourceWaveform } from '../../netlist';
-import { type MnaSystem, type SourceModel, type StepContext } from '../stamp';
+import { type LinearModel, type MnaSystem, type SourceModel, type StepContext } from '../stamp';
 import { collectCorners, jumpsAt, sourceValue } from '../waveform';
 
 /** Independent current source pushing its value from `from` into `to`. */
-export class CurrentSourceModel implements SourceModel {
+export class CurrentSourceModel implements SourceModel, LinearModel {
   readonly nonlinear = false;
   readonly nodes: readonly number[];
   private wave: SourceWaveform = { kind: 'dc', value: 0 };
@@ -23,6 +23,10 @@ export class CurrentSourceModel implements SourceModel {
   reset(): void {}
 
   stamp(s: MnaSystem, _x: Float64Array, ctx: StepContext): void {
+    s.addCurrent(this.from, this.to, sourceValue(this.wave, ctx.t, ctx.left));
+  }
+
+  stampRhs(s: MnaSystem, ctx: StepContext): void {
     s.addCurrent(this.from, this.to, sourceValue(this.wave, ctx.t, ctx.left));
   }
 

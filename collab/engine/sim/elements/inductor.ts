@@ -1,11 +1,11 @@
 import type { Element } from '../../netlist';
-import { type ElementModel, type MnaSystem, type StepContext } from '../stamp';
+import { type LinearModel, type MnaSystem, type StepContext } from '../stamp';
 
 /**
  * Inductor with its current as an unknown (so it is a short at DC and may sit in series with an
  * ideal source): v(a) − v(b) = L·(a0·i − history).
  */
-export class InductorModel implements ElementModel {
+export class InductorModel implements LinearModel {
   readonly nonlinear = false;
   readonly nodes: readonly number[];
   private l = 0;
@@ -41,6 +41,10 @@ export class InductorModel implements ElementModel {
     s.addEntry(k, b, -1);
     s.addEntry(k, k, -this.l * ctx.method.coefficient(ctx.h));
     s.rhs[k] -= this.l * ctx.method.history(ctx.h, this.i, this.v / this.l);
+  }
+
+  stampRhs(s: MnaSystem, ctx: StepContext): void {
+    s.rhs[this.k] -= this.l * ctx.method.history(ctx.h, this.i, this.v / this.l);
   }
 
   settled(): boolean {

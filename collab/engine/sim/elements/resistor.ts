@@ -1,8 +1,8 @@
 import type { Element } from '../../netlist';
-import { type ElementModel, type MnaSystem } from '../stamp';
+import { type LinearModel, type MnaSystem } from '../stamp';
 
 /** Linear resistor: a conductance 1/R between its nets. */
-export class ResistorModel implements ElementModel {
+export class ResistorModel implements LinearModel {
   readonly nonlinear = false;
   readonly nodes: readonly number[];
   private g = 0;
@@ -24,6 +24,9 @@ export class ResistorModel implements ElementModel {
   stamp(s: MnaSystem): void {
     s.addConductance(this.a, this.b, this.g);
   }
+
+  /** A resistor has no right-hand-side term. */
+  stampRhs(): void {}
 
   settled(): boolean {
     return true;

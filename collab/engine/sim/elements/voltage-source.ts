@@ -1,12 +1,12 @@
 import type { Element, SourceWaveform } from '../../netlist';
-import { type MnaSystem, type SourceModel, type StepContext } from '../stamp';
+import { type LinearModel, type MnaSystem, type SourceModel, type StepContext } from '../stamp';
 import { collectCorners, jumpsAt, sourceValue } from '../waveform';
 
 /**
  * Independent voltage source. Ideal (rs = 0): a branch-current unknown k; with series
  * resistance: its Norton equivalent, which keeps the matrix smaller.
  */
-export class VoltageSourceModel implements SourceModel {
+export class VoltageSourceModel implements SourceModel, LinearModel {
   readonly nonlinear = false;
   readonly nodes: readonly number[];
   private wave: SourceWaveform = { kind: 'dc', value: 0 };
@@ -43,6 +43,12 @@ export class VoltageSourceModel implements SourceModel {
     s.addEntry(k, pos, 1);
     s.addEntry(k, neg, -1);
     s.rhs[k] += v;
+  }
+
+  stampRhs(s: MnaSystem, ctx: StepContext): void {
+    const v = sourceValue(this.wave, ctx.t, ctx.left);
+    if (this.k < 0) s.addCurrent(this.neg, this.pos, v * this.gs);
+    else s.rhs[this.k] += v;
   }
 
   settled(): boolean {

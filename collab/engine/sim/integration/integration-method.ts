@@ -14,7 +14,8 @@ export interface IntegrationMethod {
   history(h: number, x: number, dx: number): number;
   /**
    * Local truncation error of one step of size h, given the divided difference of order
-   * `order + 1` of the solution over the last `order + 2` points.
+   * `order + 1` of the solution over the last `order + 2` points. Must be (a factor of h)·|dd|:
+   * the error estimate calls it once per step with dd = 1 and scales the result per node.
    */
   truncationError(h: number, dividedDifference: number): number;
 }

@@ -14,7 +14,8 @@ import { RouterLink } from '@angular/router';
 import { toApiProblem } from '../../shared/api/api-error';
 import { AuthSession } from '../../shared/auth/auth-session';
 import {
-  PASSWORD_MAX_LENGTH,
+  NEW_PASSWORD_VALIDATORS,
+  revalidateOn,
   PASSWORD_MIN_LENGTH,
   differsFromSibling,
   fieldMessage,
@@ -98,15 +99,7 @@ export class ChangePassword {
   protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
     currentPassword: ['', [Validators.required]],
-    newPassword: [
-      '',
-      [
-        Validators.required,
-        Validators.minLength(PASSWORD_MIN_LENGTH),
-        Validators.maxLength(PASSWORD_MAX_LENGTH),
-        differsFromSibling('currentPassword'),
-      ],
-    ],
+    newPassword: ['', [...NEW_PASSWORD_VALIDATORS, differsFromSibling('currentPassword')]],
     repeat: ['', [Validators.required, matchesSibling('newPassword')]],
   });
   protected readonly pending = signal(false);
@@ -115,10 +108,8 @@ export class ChangePassword {
 
   constructor() {
     const { currentPassword, newPassword, repeat } = this.form.controls;
-    currentPassword.valueChanges.subscribe(() =>
-      newPassword.updateValueAndValidity({ emitEvent: false }),
-    );
-    newPassword.valueChanges.subscribe(() => repeat.updateValueAndValidity({ emitEvent: false }));
+    revalidateOn(currentPassword, newPassword);
+    revalidateOn(newPassword, repeat);
   }
 
   protected message(name: Field, label: string): string {

@@ -10,7 +10,8 @@ import { toApiProblem } from '../../shared/api/api-error';
 import { AuthSession } from '../../shared/auth/auth-session';
 import { safeReturnUrl } from '../../shared/auth/return-url';
 import {
-  PASSWORD_MAX_LENGTH,
+  NEW_PASSWORD_VALIDATORS,
+  revalidateOn,
   PASSWORD_MIN_LENGTH,
   fieldMessage,
   matchesSibling,
@@ -97,24 +98,14 @@ export class Register implements OnInit {
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: ['', [Validators.required, Validators.maxLength(120)]],
     email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]],
-    password: [
-      '',
-      [
-        Validators.required,
-        Validators.minLength(PASSWORD_MIN_LENGTH),
-        Validators.maxLength(PASSWORD_MAX_LENGTH),
-      ],
-    ],
+    password: ['', [...NEW_PASSWORD_VALIDATORS]],
     repeat: ['', [Validators.required, matchesSibling('password')]],
   });
   protected readonly pending = signal(false);
   protected readonly formError = signal<string | null>(null);
 
   constructor() {
-    // The repeat check reads the password, so re-run it when the password changes.
-    this.form.controls.password.valueChanges.subscribe(() =>
-      this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }),
-    );
+    revalidateOn(this.form.controls.password, this.form.controls.repeat);
   }
 
   ngOnInit(): void {

@@ -9,7 +9,8 @@ import { Router, RouterLink } from '@angular/router';
 import { toApiProblem } from '../../shared/api/api-error';
 import { AuthSession } from '../../shared/auth/auth-session';
 import {
-  PASSWORD_MAX_LENGTH,
+  NEW_PASSWORD_VALIDATORS,
+  revalidateOn,
   PASSWORD_MIN_LENGTH,
   fieldMessage,
   matchesSibling,
@@ -88,23 +89,14 @@ export class ResetPassword {
 
   protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
-    password: [
-      '',
-      [
-        Validators.required,
-        Validators.minLength(PASSWORD_MIN_LENGTH),
-        Validators.maxLength(PASSWORD_MAX_LENGTH),
-      ],
-    ],
+    password: ['', [...NEW_PASSWORD_VALIDATORS]],
     repeat: ['', [Validators.required, matchesSibling('password')]],
   });
   protected readonly pending = signal(false);
   protected readonly formError = signal<string | null>(null);
 
   constructor() {
-    this.form.controls.password.valueChanges.subscribe(() =>
-      this.form.controls.repeat.updateValueAndValidity({ emitEvent: false }),
-    );
+    revalidateOn(this.form.controls.password, this.form.controls.repeat);
   }
 
   protected message(name: 'password' | 'repeat', label: string): string {

@@ -1,4 +1,4 @@
-import { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
+import { AbstractControl, ValidationErrors, ValidatorFn, Validators } from '@angular/forms';
 
 /**
  * The one inline message for a control, in plain words naming the field. Order matters: the
@@ -51,3 +51,18 @@ export function differsFromSibling(otherName: string): ValidatorFn {
  */
 export const PASSWORD_MIN_LENGTH = 10;
 export const PASSWORD_MAX_LENGTH = 72;
+
+/** Validators of a new password: required, within the length bounds the server enforces. */
+export const NEW_PASSWORD_VALIDATORS: readonly ValidatorFn[] = [
+  Validators.required,
+  Validators.minLength(PASSWORD_MIN_LENGTH),
+  Validators.maxLength(PASSWORD_MAX_LENGTH),
+];
+
+/**
+ * Re-validates `dependent` whenever `source` changes: cross-field checks sit on the field the
+ * user fixes (see `matchesSibling`), so they must re-run when the other field moves.
+ */
+export function revalidateOn(source: AbstractControl, dependent: AbstractControl): void {
+  source.valueChanges.subscribe(() => dependent.updateValueAndValidity({ emitEvent: false }));
+}
