@@ -21,7 +21,7 @@ describe('validatePresence', () => {
     [{ user: { ...user, name: '' } }, 'user.name'],
     [{ user: { ...user, extra: 1 } }, 'user'],
     [{ user, cursorTime: Number.NaN }, 'cursorTime'],
-    [{ user, selection: [{ kind: 'printer', id: 'x' }] }, 'selection[0].kind'],
+    [{ user, selection: [{ kind: 'teapot', id: 'x' }] }, 'selection[0].kind'],
     [{ user, viewport: { t0: 1, t1: 1 } }, 'viewport'],
     [{ user, secret: true }, 'secret'],
     ['not an object', 'presence'],
