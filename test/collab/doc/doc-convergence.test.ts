@@ -11,7 +11,8 @@ import { createPlanUndo, type PlanUndo } from '@rampart/collab/doc/plan-undo';
 import { planToDoc } from '@rampart/collab/doc/plan-to-doc';
 import { setThreshold } from '@rampart/collab/doc/signal-ops';
 
-import { seededRandom, smallIntents, smallPlan } from './fixtures';
+import { seededRandom } from '../../utils/seeded-random';
+import { smallIntents, smallPlan } from './fixtures';
 
 interface Replica {
   doc: Y.Doc;

@@ -107,15 +107,3 @@ export function smallIntents(): IntentTable {
     v33: { start: 0.005, end: 0.0055, level: 3.3, points: [] },
   };
 }
-
-/** A small deterministic PRNG (mulberry32), so fuzz runs repeat exactly. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
