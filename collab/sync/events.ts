@@ -25,6 +25,12 @@ export type Response<T> = { data: T } | { error: SyncError };
 /** Binary payload as received: Node gives a `Buffer` (a Uint8Array), browsers an ArrayBuffer. */
 export type WireBytes = Uint8Array | ArrayBuffer;
 
+/**
+ * A sync or awareness message between client and server: its y-protocols bytes in base64, so a
+ * socket.io packet is one text frame (see `wire-codec.ts`).
+ */
+export type WireText = string;
+
 /** Ack of `plan:join`. */
 export interface JoinResult {
   planId: PlanId;
@@ -46,14 +52,14 @@ export interface SyncAck {
 export interface ClientToServerEvents {
   'plan:join': (planId: PlanId, ack: (res: Response<JoinResult>) => void) => void;
   'plan:leave': (planId: PlanId, ack: (res: Response<{ planId: PlanId }>) => void) => void;
-  /** `payload` = `[MessageType, …]`, see `wire-codec.ts`. */
-  'plan:sync': (planId: PlanId, payload: WireBytes, ack?: (res: Response<SyncAck>) => void) => void;
+  /** `payload` = base64 of `[MessageType, …]`, see `wire-codec.ts`. */
+  'plan:sync': (planId: PlanId, payload: WireText, ack?: (res: Response<SyncAck>) => void) => void;
 }
 
 /** Events the server sends (past tense). */
 export interface ServerToClientEvents {
-  /** Sync or awareness bytes for a joined plan (`[MessageType, …]`). */
-  'plan:synced': (planId: PlanId, payload: WireBytes) => void;
+  /** Sync or awareness message for a joined plan (base64 of `[MessageType, …]`). */
+  'plan:synced': (planId: PlanId, payload: WireText) => void;
   /** The server finished answering the client's sync step 1: the client holds the stored plan. */
   'plan:loaded': (planId: PlanId) => void;
   /** A document update from a read-only socket was dropped. */

@@ -2,7 +2,14 @@
  * Encoding and strict decoding of `plan:sync` payloads over y-protocols framing and lib0.
  * Decoding never throws: it returns a result naming what was wrong, so the relay can answer a
  * bad message with an error event instead of crashing or half-applying it.
+ *
+ * On the wire a message is its y-protocols bytes in base64 (`toWire`/`fromWire`). socket.io sends
+ * a binary argument as a second websocket frame and encodes that frame once per recipient; a
+ * text-only packet is one frame, and a broadcast encodes it once for every recipient in the room
+ * (`wsPreEncodedFrame` in socket.io-adapter). Measured in `npm run bench:collab`: see
+ * `server/collab/README.md`.
  */
+import * as buffer from 'lib0/buffer';
 import * as decoding from 'lib0/decoding';
 import * as encoding from 'lib0/encoding';
 import * as awarenessProtocol from 'y-protocols/awareness';
@@ -30,7 +37,38 @@ export type DecodeResult =
   | { ok: true; message: PlanMessage }
   | { ok: false; code: 'malformed' | 'too_large'; reason: string };
 
-/** Normalises what socket.io delivers (Buffer, Uint8Array, ArrayBuffer) to a Uint8Array. */
+/** A message as sent over socket.io: its y-protocols bytes in base64 (RFC 4648, padded). */
+export type WirePayload = string;
+
+/** Longest base64 text of a message of MAX_MESSAGE_BYTES bytes. */
+const MAX_WIRE_CHARS = Math.ceil(MAX_MESSAGE_BYTES / 3) * 4;
+
+/** Strict RFC 4648 base64: whole quanta, padding only at the end. */
+const BASE64 = /^(?:[A-Za-z0-9+/]{4})*(?:[A-Za-z0-9+/]{2}==|[A-Za-z0-9+/]{3}=)?$/;
+
+/** The wire form of a message. */
+export function toWire(bytes: Uint8Array): WirePayload {
+  return buffer.toBase64(bytes);
+}
+
+export type FromWireResult =
+  { ok: true; bytes: Uint8Array } | { ok: false; code: 'malformed' | 'too_large'; reason: string };
+
+/** The bytes of a wire payload, or why it is not one. Never throws. */
+export function fromWire(payload: unknown): FromWireResult {
+  if (typeof payload !== 'string') {
+    return { ok: false, code: 'malformed', reason: 'payload must be a base64 string' };
+  }
+  if (payload.length > MAX_WIRE_CHARS) {
+    return { ok: false, code: 'too_large', reason: `message over ${MAX_MESSAGE_BYTES} bytes` };
+  }
+  if (!BASE64.test(payload)) {
+    return { ok: false, code: 'malformed', reason: 'payload is not valid base64' };
+  }
+  return { ok: true, bytes: buffer.fromBase64(payload) };
+}
+
+/** Normalises binary that socket.io delivers (Buffer, Uint8Array, ArrayBuffer) to a Uint8Array. */
 export function toBytes(payload: unknown): Uint8Array | null {
   if (payload instanceof Uint8Array) return payload;
   if (payload instanceof ArrayBuffer) return new Uint8Array(payload);
@@ -84,12 +122,16 @@ export function encodeAwarenessBytes(update: Uint8Array): Uint8Array {
 }
 
 /**
- * Decodes and validates a `plan:sync` payload: framing fully consumed, updates parseable by Yjs,
- * awareness states valid presence. Never throws.
+ * Decodes and validates a `plan:sync` wire payload: base64 text, framing fully consumed, updates
+ * parseable by Yjs, awareness states valid presence. Never throws.
  */
 export function decodePlanMessage(payload: unknown): DecodeResult {
-  const bytes = toBytes(payload);
-  if (!bytes) return { ok: false, code: 'malformed', reason: 'payload must be binary' };
+  const wire = fromWire(payload);
+  return wire.ok ? decodePlanBytes(wire.bytes) : wire;
+}
+
+/** `decodePlanMessage` for bytes already taken off the wire. Never throws. */
+export function decodePlanBytes(bytes: Uint8Array): DecodeResult {
   if (bytes.byteLength > MAX_MESSAGE_BYTES) {
     return { ok: false, code: 'too_large', reason: `message over ${MAX_MESSAGE_BYTES} bytes` };
   }

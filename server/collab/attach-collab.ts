@@ -5,7 +5,12 @@ import type { Server as SocketServer } from 'socket.io';
 import type { DataSource } from 'typeorm';
 
 import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
-import { encodeAwarenessBytes, encodeUpdate, toBytes } from '@rampart/collab/sync/wire-codec';
+import {
+  encodeAwarenessBytes,
+  encodeUpdate,
+  toBytes,
+  toWire,
+} from '@rampart/collab/sync/wire-codec';
 
 import { PlanDocumentRepository } from '../data-access/repositories/plan-document-repository';
 import type { Logger } from '../logger';
@@ -97,11 +102,15 @@ export function attachCollab(io: SocketServer, deps: CollabDeps): CollabRelay {
   const registry = new RoomRegistry(repository, options, log, {
     docUpdated(planId, update, except) {
       const op = namespace.local.to(roomKey(planId));
-      (except ? op.except(except) : op).emit('plan:synced', planId, encodeUpdate(update));
+      (except ? op.except(except) : op).emit('plan:synced', planId, toWire(encodeUpdate(update)));
     },
     awarenessUpdated(planId, update, except, relayed) {
       const op = namespace.local.to(roomKey(planId));
-      (except ? op.except(except) : op).emit('plan:synced', planId, encodeAwarenessBytes(update));
+      (except ? op.except(except) : op).emit(
+        'plan:synced',
+        planId,
+        toWire(encodeAwarenessBytes(update)),
+      );
       if (multiProcess && !relayed)
         namespace.serverSideEmit('plan:presence-relayed', planId, update);
     },

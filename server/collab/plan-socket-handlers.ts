@@ -10,6 +10,7 @@ import { isReadOnlyRole } from '@rampart/collab/sync/read-only-roles';
 import { addsNothing } from '@rampart/collab/sync/update-news';
 import {
   decodePlanMessage,
+  toWire,
   encodeAwareness,
   encodeStep2Update,
   encodeSyncStep1,
@@ -184,10 +185,10 @@ export function registerPlanHandlers(
   /** The server's sync step 1 and everyone's presence: the client answers with its step 2. */
   function sendInitial(room: PlanRoom): void {
     if (room.phase !== 'ready') return;
-    socket.emit('plan:synced', room.planId, encodeSyncStep1(room.doc));
+    socket.emit('plan:synced', room.planId, toWire(encodeSyncStep1(room.doc)));
     const ids = [...room.awareness.getStates().keys()];
     if (ids.length > 0)
-      socket.emit('plan:synced', room.planId, encodeAwareness(room.awareness, ids));
+      socket.emit('plan:synced', room.planId, toWire(encodeAwareness(room.awareness, ids)));
   }
 
   async function sync(planId: unknown, payload: unknown): Promise<Response<SyncAck>> {
@@ -224,7 +225,7 @@ export function registerPlanHandlers(
         message.stateVector,
         MAX_SYNC_CHUNK_BYTES,
       )) {
-        socket.emit('plan:synced', planId, encodeStep2Update(chunk));
+        socket.emit('plan:synced', planId, toWire(encodeStep2Update(chunk)));
       }
       socket.emit('plan:loaded', planId);
       return { data: { stored: [] } };

@@ -135,6 +135,15 @@ export class RoomRegistry {
     return room.writer.enqueue({ update, authorId, socketId });
   }
 
+  /**
+   * An update stored without an open room here (e.g. a snapshot restored through the API on a
+   * process that holds no socket of the plan): tell the other processes, whose rooms apply and
+   * relay it at once instead of at their next anti-entropy pass.
+   */
+  announceStored(planId: string, update: Uint8Array, seq: number): void {
+    this.events.stored(planId, update, seq);
+  }
+
   /** Presence from another process: apply it to this process's copy of the room. */
   presenceRelayed(planId: string, update: Uint8Array): void {
     const room = this.get(planId);

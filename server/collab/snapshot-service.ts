@@ -91,6 +91,7 @@ export class SnapshotService {
       // Through the open room, so connected clients receive it like any edit.
       if (room) return await this.registry.store(room, forward, authorId);
       const [seq] = await this.documents.append(planId, [{ update: forward, authorId }]);
+      this.registry.announceStored(planId, forward, seq!);
       return seq!;
     } finally {
       source.destroy();

@@ -6,6 +6,7 @@ import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
 import {
   decodePlanMessage,
+  toWire,
   encodeAwarenessBytes,
   encodeStep2Update,
   encodeSyncStep1,
@@ -35,7 +36,7 @@ export function attachBareRelay(io: SocketServer): () => void {
       const r = room(planId);
       void socket.join(planId);
       ack({ data: { planId, role: 'editor', readOnly: false } });
-      socket.emit('plan:synced', planId, encodeSyncStep1(r.doc));
+      socket.emit('plan:synced', planId, toWire(encodeSyncStep1(r.doc)));
     });
     socket.on('plan:sync', (planId: string, payload: unknown, ack?: (r: unknown) => void) => {
       const r = rooms.get(planId);
@@ -44,20 +45,20 @@ export function attachBareRelay(io: SocketServer): () => void {
       const m = decoded.message;
       if (m.type === MessageType.Awareness) {
         applyAwarenessUpdate(r.awareness, m.update, socket.id);
-        socket.to(planId).emit('plan:synced', planId, encodeAwarenessBytes(m.update));
+        socket.to(planId).emit('plan:synced', planId, toWire(encodeAwarenessBytes(m.update)));
         return ack?.({ data: { stored: [] } });
       }
       if (m.step === SyncStep.Step1) {
         socket.emit(
           'plan:synced',
           planId,
-          encodeStep2Update(Y.encodeStateAsUpdate(r.doc, m.stateVector)),
+          toWire(encodeStep2Update(Y.encodeStateAsUpdate(r.doc, m.stateVector))),
         );
         socket.emit('plan:loaded', planId);
         return ack?.({ data: { stored: [] } });
       }
       Y.applyUpdate(r.doc, m.update);
-      socket.to(planId).emit('plan:synced', planId, encodeUpdate(m.update));
+      socket.to(planId).emit('plan:synced', planId, toWire(encodeUpdate(m.update)));
       return ack?.({ data: { stored: [0] } });
     });
   });

@@ -17,7 +17,7 @@ import * as Y from 'yjs';
 import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 import { MAX_PACKET_BYTES } from '@rampart/collab/sync/limits';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
-import { toBytes } from '@rampart/collab/sync/wire-codec';
+import { fromWire } from '@rampart/collab/sync/wire-codec';
 
 import { attachCollab, type CollabRelay } from '../../server/collab/attach-collab';
 import { openDatabase } from '../../server/data-access/data-source';
@@ -30,8 +30,10 @@ import { benchNow } from './collab-client-protocol';
  * `benchNow()` reading), or null for any other message.
  */
 function sendStamp(payload: unknown): number | null {
-  const bytes = toBytes(payload);
-  if (!bytes || bytes[0] !== MessageType.Sync || bytes[1] !== SyncStep.Update) return null;
+  const wire = fromWire(payload);
+  if (!wire.ok) return null;
+  const bytes = wire.bytes;
+  if (bytes[0] !== MessageType.Sync || bytes[1] !== SyncStep.Update) return null;
   try {
     const d = decoding.createDecoder(bytes);
     decoding.readVarUint(d);

@@ -8,7 +8,7 @@ import * as Y from 'yjs';
 
 import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
-import { encodeSyncStep1, toBytes } from '@rampart/collab/sync/wire-codec';
+import { encodeSyncStep1, fromWire, toWire } from '@rampart/collab/sync/wire-codec';
 
 import { TestPlanClient, type ClientSocket } from '../utils/collab-client';
 import {
@@ -42,15 +42,15 @@ class ArrivalClient {
           return;
         }
         // An empty state vector: the server answers with the whole plan, then `plan:loaded`.
-        this.socket.emit('plan:sync', planId, encodeSyncStep1(new Y.Doc()));
+        this.socket.emit('plan:sync', planId, toWire(encodeSyncStep1(new Y.Doc())));
       });
     });
     this.socket.on('plan:loaded', () => (this.loaded = true));
     this.socket.on('plan:synced', (_planId, payload) => {
       if (!this.recording) return;
-      const bytes = toBytes(payload);
+      const wire = fromWire(payload);
       // Two header bytes tell an update frame from presence or sync steps; no Yjs decoding.
-      if (bytes && bytes[0] === MessageType.Sync && bytes[1] === SyncStep.Update) {
+      if (wire.ok && wire.bytes[0] === MessageType.Sync && wire.bytes[1] === SyncStep.Update) {
         this.arrivals.push(benchNow());
       }
     });

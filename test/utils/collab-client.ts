@@ -13,6 +13,7 @@ import {
   type Response,
   type ServerToClientEvents,
   type SyncAck,
+  type WireText,
 } from '@rampart/collab/sync/events';
 import { MessageType } from '@rampart/collab/sync/message-type';
 import type { Presence } from '@rampart/collab/sync/presence';
@@ -20,7 +21,8 @@ import {
   encodeAwarenessBytes,
   encodeSyncStep1,
   encodeUpdate,
-  toBytes,
+  fromWire,
+  toWire,
 } from '@rampart/collab/sync/wire-codec';
 
 export type ClientSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
@@ -103,7 +105,7 @@ export class TestPlanClient {
         this.socket.emit(
           'plan:sync',
           this.planId,
-          encodeAwarenessBytes(encodeAwarenessUpdate(this.awareness, ids)),
+          toWire(encodeAwarenessBytes(encodeAwarenessUpdate(this.awareness, ids))),
         );
       },
     );
@@ -114,9 +116,16 @@ export class TestPlanClient {
     this.awareness.setLocalState(presence);
   }
 
-  /** Sends raw bytes as a `plan:sync` payload and resolves with the ack. */
+  /** Sends raw bytes (in wire form) as a `plan:sync` payload and resolves with the ack. */
   sendRaw(payload: Uint8Array, planId = this.planId): Promise<Response<SyncAck>> {
-    return this.socket.timeout(5000).emitWithAck('plan:sync', planId, payload);
+    return this.sendPayload(toWire(payload), planId);
+  }
+
+  /** Sends anything as the `plan:sync` payload (bad input tests) and resolves with the ack. */
+  sendPayload(payload: unknown, planId = this.planId): Promise<Response<SyncAck>> {
+    return this.socket
+      .timeout(5000)
+      .emitWithAck('plan:sync', planId, payload as unknown as WireText);
   }
 
   /** Resolves when the socket is connected and joined (and synced once). */
@@ -144,12 +153,12 @@ export class TestPlanClient {
       this.join = res.data;
       this.joinError = null;
       // Re-run sync step 1 after every (re)connect: the server answers with what we lack.
-      this.socket.emit('plan:sync', this.planId, encodeSyncStep1(this.doc));
+      this.socket.emit('plan:sync', this.planId, toWire(encodeSyncStep1(this.doc)));
       if (this.awareness.getLocalState() !== null) {
         this.socket.emit(
           'plan:sync',
           this.planId,
-          encodeAwarenessBytes(encodeAwarenessUpdate(this.awareness, [this.doc.clientID])),
+          toWire(encodeAwarenessBytes(encodeAwarenessUpdate(this.awareness, [this.doc.clientID]))),
         );
       }
     });
@@ -158,7 +167,7 @@ export class TestPlanClient {
   private sendUpdate(update: Uint8Array, framed = encodeUpdate(update)): void {
     this.unacked++;
     const generation = this.generation;
-    this.socket.emit('plan:sync', this.planId, framed, (res) => {
+    this.socket.emit('plan:sync', this.planId, toWire(framed), (res) => {
       if (generation === this.generation) this.unacked--;
       if ('data' in res) {
         for (const seq of res.data.stored) this.acknowledged.push({ update, seq });
@@ -171,8 +180,10 @@ export class TestPlanClient {
   }
 
   private receive(planId: string, payload: unknown): void {
-    const bytes = toBytes(payload);
-    if (planId !== this.planId || !bytes) return;
+    const wire = fromWire(payload);
+    if (planId !== this.planId) return;
+    if (!wire.ok) throw new Error(`relay sent a bad payload: ${wire.reason}`);
+    const bytes = wire.bytes;
     const d = decoding.createDecoder(bytes);
     const type = decoding.readVarUint(d);
     if (type === MessageType.Awareness) {
@@ -191,7 +202,7 @@ export class TestPlanClient {
       decoding.readVarUint(inner);
       decoding.readVarUint(inner);
       const update = decoding.readVarUint8Array(inner);
-      if (this.join.readOnly) this.socket.emit('plan:sync', this.planId, framed);
+      if (this.join.readOnly) this.socket.emit('plan:sync', this.planId, toWire(framed));
       else this.sendUpdate(update, framed);
     }
   }

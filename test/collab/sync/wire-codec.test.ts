@@ -8,11 +8,14 @@ import { MAX_MESSAGE_BYTES } from '@rampart/collab/sync/limits';
 import { MessageType, SyncStep, isWriteStep } from '@rampart/collab/sync/message-type';
 import { addsNothing } from '@rampart/collab/sync/update-news';
 import {
+  decodePlanBytes,
   decodePlanMessage,
   encodeAwarenessBytes,
   encodeSyncStep1,
   encodeSyncStep2,
   encodeUpdate,
+  fromWire,
+  toWire,
 } from '@rampart/collab/sync/wire-codec';
 
 function docWithPart(id: string, value: number): Y.Doc {
@@ -37,15 +40,15 @@ describe('wire codec', () => {
 
   it('encodeSyncStep1 / encodeSyncStep2 / encodeUpdate → decode back to the same step and bytes', () => {
     const doc = docWithPart('R1', 100_000);
-    const step1 = decodePlanMessage(encodeSyncStep1(doc));
+    const step1 = decodePlanBytes(encodeSyncStep1(doc));
     expect(step1).toMatchObject({
       ok: true,
       message: { type: MessageType.Sync, step: SyncStep.Step1 },
     });
-    const step2 = decodePlanMessage(encodeSyncStep2(doc));
+    const step2 = decodePlanBytes(encodeSyncStep2(doc));
     expect(step2).toMatchObject({ ok: true, message: { step: SyncStep.Step2 } });
     const update = Y.encodeStateAsUpdate(doc);
-    const decoded = decodePlanMessage(encodeUpdate(update));
+    const decoded = decodePlanBytes(encodeUpdate(update));
     expect(
       decoded.ok &&
         decoded.message.type === MessageType.Sync &&
@@ -54,34 +57,65 @@ describe('wire codec', () => {
     ).toEqual(update);
   });
 
-  it('decodePlanMessage(truncated, trailing, unknown type, non-binary) → malformed with a reason', () => {
+  it('decodePlanBytes(truncated, trailing, unknown type, non-binary) → malformed with a reason', () => {
     const good = encodeUpdate(Y.encodeStateAsUpdate(docWithPart('C1', 1e-6)));
-    expect(decodePlanMessage(good.slice(0, good.length - 2))).toMatchObject({
+    expect(decodePlanBytes(good.slice(0, good.length - 2))).toMatchObject({
       ok: false,
       code: 'malformed',
     });
-    expect(decodePlanMessage(new Uint8Array([...good, 7]))).toMatchObject({
+    expect(decodePlanBytes(new Uint8Array([...good, 7]))).toMatchObject({
       ok: false,
       reason: 'trailing bytes',
     });
-    expect(decodePlanMessage(new Uint8Array([9, 0]))).toMatchObject({
+    expect(decodePlanBytes(new Uint8Array([9, 0]))).toMatchObject({
       ok: false,
       reason: 'unknown message type 9',
     });
-    expect(decodePlanMessage('text')).toMatchObject({
-      ok: false,
-      reason: 'payload must be binary',
-    });
-    expect(decodePlanMessage(new Uint8Array(MAX_MESSAGE_BYTES + 1))).toMatchObject({
+    expect(decodePlanBytes(new Uint8Array(MAX_MESSAGE_BYTES + 1))).toMatchObject({
       ok: false,
       code: 'too_large',
     });
   });
 
-  it('decodePlanMessage(ArrayBuffer as a browser delivers it) → decoded', () => {
-    const bytes = encodeSyncStep1(new Y.Doc());
-    const buffer = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength);
-    expect(decodePlanMessage(buffer)).toMatchObject({ ok: true });
+  it('toWire → the RFC 4648 §10 base64 test vectors; fromWire inverts them', () => {
+    // RFC 4648, "The Base16, Base32, and Base64 Data Encodings", section 10 (test vectors).
+    const vectors: Array<[string, string]> = [
+      ['', ''],
+      ['f', 'Zg=='],
+      ['fo', 'Zm8='],
+      ['foo', 'Zm9v'],
+      ['foob', 'Zm9vYg=='],
+      ['fooba', 'Zm9vYmE='],
+      ['foobar', 'Zm9vYmFy'],
+    ];
+    for (const [text, base64] of vectors) {
+      const bytes = new TextEncoder().encode(text);
+      expect(toWire(bytes)).toBe(base64);
+      expect(fromWire(base64)).toEqual({ ok: true, bytes });
+    }
+  });
+
+  it('decodePlanMessage(wire text) → decoded; binary, bad base64, oversized text → rejected', () => {
+    const doc = docWithPart('R2', 4700);
+    const update = Y.encodeStateAsUpdate(doc);
+    const decoded = decodePlanMessage(toWire(encodeUpdate(update)));
+    expect(decoded.ok && 'update' in decoded.message && decoded.message.update).toEqual(update);
+    expect(decodePlanMessage(encodeUpdate(update))).toMatchObject({
+      ok: false,
+      reason: 'payload must be a base64 string',
+    });
+    const wire = toWire(encodeUpdate(update));
+    for (const bad of ['hello', `${wire}=`, `${wire.slice(1)}`, wire.replace(/.$/, '-'), ' AAA']) {
+      expect(decodePlanMessage(bad)).toMatchObject({
+        ok: false,
+        code: 'malformed',
+        reason: 'payload is not valid base64',
+      });
+    }
+    expect(decodePlanMessage('A'.repeat(Math.ceil(MAX_MESSAGE_BYTES / 3) * 4 + 4))).toMatchObject({
+      ok: false,
+      code: 'too_large',
+    });
   });
 
   it('awareness with a valid presence → entries; with a bad cursorTime → malformed naming the field', () => {
@@ -91,13 +125,13 @@ describe('wire codec', () => {
       user: { id: 'u1', name: 'Ada', colour: '#14507a' },
       viewport: { t0: 0, t1: 0.02 },
     });
-    const ok = decodePlanMessage(encodeAwarenessBytes(encodeAwarenessUpdate(aw, [doc.clientID])));
+    const ok = decodePlanBytes(encodeAwarenessBytes(encodeAwarenessUpdate(aw, [doc.clientID])));
     expect(ok).toMatchObject({
       ok: true,
       message: { type: MessageType.Awareness, entries: [{ clientId: doc.clientID }] },
     });
     aw.setLocalState({ user: { id: 'u1', name: 'Ada', colour: '#14507a' }, cursorTime: 'soon' });
-    const bad = decodePlanMessage(encodeAwarenessBytes(encodeAwarenessUpdate(aw, [doc.clientID])));
+    const bad = decodePlanBytes(encodeAwarenessBytes(encodeAwarenessUpdate(aw, [doc.clientID])));
     expect(bad).toMatchObject({
       ok: false,
       code: 'malformed',
@@ -111,7 +145,7 @@ describe('wire codec', () => {
     encoding.writeVarUint(e, MessageType.Sync);
     encoding.writeVarUint(e, 5);
     encoding.writeVarUint8Array(e, new Uint8Array([0, 0]));
-    expect(decodePlanMessage(encoding.toUint8Array(e))).toMatchObject({
+    expect(decodePlanBytes(encoding.toUint8Array(e))).toMatchObject({
       ok: false,
       reason: 'unknown sync step 5',
     });

@@ -4,7 +4,7 @@ import * as Y from 'yjs';
 
 import { MAX_MESSAGE_BYTES } from '@rampart/collab/sync/limits';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
-import { encodeAwarenessBytes, encodeUpdate } from '@rampart/collab/sync/wire-codec';
+import { encodeAwarenessBytes, encodeUpdate, toWire } from '@rampart/collab/sync/wire-codec';
 
 import { eventually, TestPlanClient } from '../../utils/collab-client';
 import {
@@ -83,7 +83,17 @@ describe('live plan relay: bad input', () => {
     const codes = new Map<string, number>();
     for (let i = 0; i < 1000; i++) {
       let payload: Uint8Array;
-      const kind = i % 4;
+      const kind = i % 5;
+      if (kind === 4) {
+        // Text that is not always base64: printable ASCII of any length.
+        const text = String.fromCharCode(
+          ...Array.from({ length: 1 + randomInt(random, 80) }, () => 32 + randomInt(random, 95)),
+        );
+        const res = await attacker.sendPayload(text);
+        const code = 'error' in res ? res.error.code : 'accepted';
+        codes.set(code, (codes.get(code) ?? 0) + 1);
+        continue;
+      }
       if (kind === 0) {
         payload = new Uint8Array(1 + randomInt(random, 200)).map(() => randomInt(random, 256));
       } else if (kind === 1) {
@@ -127,11 +137,29 @@ describe('live plan relay: bad input', () => {
     expect(attacker.socket.connected).toBe(true);
   });
 
-  it('non-binary payload and message for a plan not joined → malformed / not_joined', async () => {
+  it('payload not base64 text, and message for a plan not joined → malformed / not_joined', async () => {
     const attacker = clients[1]!;
-    const res1 = await attacker.socket
-      .timeout(2000)
-      .emitWithAck('plan:sync', planId, 'hello' as unknown as Uint8Array);
+    const room = server.relay.registry.get(planId)!;
+    const before = Y.encodeStateAsUpdate(room.doc);
+    const valid = toWire(validMessage(seededRandom(2)));
+    const bad: Array<[unknown, string]> = [
+      ['hello', 'not valid base64'],
+      [`${valid.slice(0, -2)}*=`, 'not valid base64'],
+      [`=${valid}`, 'not valid base64'],
+      [validMessage(seededRandom(3)), 'must be a base64 string'], // binary, the old wire form
+      [12345, 'must be a base64 string'],
+      [{ update: valid }, 'must be a base64 string'],
+      [null, 'must be a base64 string'],
+    ];
+    for (const [payload, reason] of bad) {
+      const res = await attacker.sendPayload(payload);
+      expect(res).toMatchObject({
+        error: { code: 'malformed', message: expect.stringContaining(reason) },
+      });
+    }
+    expect(Y.encodeStateAsUpdate(room.doc)).toEqual(before);
+    expect(attacker.socket.connected).toBe(true);
+    const res1 = await attacker.sendPayload('hello');
     expect(res1).toMatchObject({ error: { code: 'malformed' } });
     const other = await createPlanRow(server.dataSource, 'motor-drive-other');
     const res2 = await attacker.sendRaw(validMessage(seededRandom(1)), other);

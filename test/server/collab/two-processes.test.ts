@@ -5,7 +5,7 @@ import { Client } from 'pg';
 
 import { openDatabase } from '../../../server/data-access/data-source';
 import { eventually, TestPlanClient } from '../../utils/collab-client';
-import { createPlanRow } from '../../utils/collab-test-server';
+import { AccessTable, createPlanRow, startCollabTestServer } from '../../utils/collab-test-server';
 import { createTestDatabase, type TestDatabase } from '../../utils/test-database';
 
 const ROOT = path.resolve(__dirname, '../../..');
@@ -138,6 +138,50 @@ describe('live plan relay: two server processes on one database', () => {
       await admin.end();
       alice.close();
       bob.close();
+    }
+  }, 30_000);
+
+  it('snapshot restored on a process with no socket of the plan → the others apply it at once', async () => {
+    // A third relay, in this test's process, holds no room of the plan: like an API request
+    // that lands on a process none of the plan's editors is connected to.
+    const third = await startCollabTestServer({
+      databaseUrl: db.url,
+      access: new AccessTable('editor'),
+      adapter: true,
+      adapterName: 'adapter-third',
+      // Far beyond the test's wait: only the adapter relay can bring the restore in time.
+      options: { antiEntropyMs: 600_000 },
+    });
+    const alice = new TestPlanClient(first!.url, ALICE, planId);
+    const bob = new TestPlanClient(second!.url, BOB, planId);
+    const reloads = (p: RelayProcess): number =>
+      (p.output.join('').match(/anti-entropy reloaded/g) ?? []).length;
+    try {
+      await Promise.all([alice.ready(), bob.ready()]);
+      alice.doc.getMap('parts').set('U4', { kind: 'ldo', vout: 1.8 });
+      await eventually(() =>
+        expect(bob.doc.getMap('parts').get('U4')).toEqual({ kind: 'ldo', vout: 1.8 }),
+      );
+      const snapshot = await third.relay.snapshots.create(planId, ALICE, 'Before the 2.5 V change');
+      alice.doc.getMap('parts').set('U4', { kind: 'ldo', vout: 2.5 });
+      await eventually(() =>
+        expect(bob.doc.getMap('parts').get('U4')).toEqual({ kind: 'ldo', vout: 2.5 }),
+      );
+      const before = [reloads(first!), reloads(second!)];
+      expect(third.relay.registry.get(planId)).toBeUndefined();
+      const seq = await third.relay.snapshots.restore(planId, snapshot.id, ALICE);
+      expect(seq).toBeGreaterThan(0);
+      for (const c of [alice, bob]) {
+        await eventually(() =>
+          expect(c.doc.getMap('parts').get('U4')).toEqual({ kind: 'ldo', vout: 1.8 }),
+        );
+      }
+      // Carried by the adapter relay, not healed by a reload from the database.
+      expect([reloads(first!), reloads(second!)]).toEqual(before);
+    } finally {
+      alice.close();
+      bob.close();
+      await third.stop();
     }
   }, 30_000);
 });

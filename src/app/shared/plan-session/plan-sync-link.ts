@@ -14,7 +14,8 @@ import {
   encodeAwareness,
   encodeSyncStep1,
   encodeUpdate,
-  toBytes,
+  fromWire,
+  toWire,
 } from '@rampart/collab/sync/wire-codec';
 
 import type { PlanClientSocket } from './plan-socket';
@@ -152,7 +153,12 @@ export class PlanSyncLink {
       this._readOnly = res.data.readOnly;
       this._listener.joined(res.data);
       // Our step 1: the server answers with what we lack, then `plan:loaded`.
-      this._socket.emit('plan:sync', this._planId, encodeSyncStep1(this._doc), () => undefined);
+      this._socket.emit(
+        'plan:sync',
+        this._planId,
+        toWire(encodeSyncStep1(this._doc)),
+        () => undefined,
+      );
       if (this._awareness.getLocalState() !== null) this._sendAwareness();
     });
   }
@@ -190,10 +196,13 @@ export class PlanSyncLink {
   }
 
   private _receive(payload: unknown): void {
-    const bytes = toBytes(payload);
-    if (!bytes) return;
+    const wire = fromWire(payload);
+    if (!wire.ok) {
+      console.warn('[plan-session] unreadable message from the relay:', wire.reason);
+      return;
+    }
     try {
-      const decoder = decoding.createDecoder(bytes);
+      const decoder = decoding.createDecoder(wire.bytes);
       const type = decoding.readVarUint(decoder);
       if (type === MessageType.Awareness) {
         applyAwarenessUpdate(this._awareness, decoding.readVarUint8Array(decoder), 'remote');
@@ -233,7 +242,7 @@ export class PlanSyncLink {
       return;
     }
     const generation = this._generation;
-    this._socket.emit('plan:sync', this._planId, message, (res: Response<SyncAck>) => {
+    this._socket.emit('plan:sync', this._planId, toWire(message), (res: Response<SyncAck>) => {
       if (generation !== this._generation) return;
       if ('error' in res) {
         // Not stored: the next join's step-2 exchange sends it again.
@@ -248,6 +257,6 @@ export class PlanSyncLink {
   private _sendAwareness(): void {
     if (!this._joined || !this._socket.connected) return;
     const message = encodeAwareness(this._awareness, [this._doc.clientID]);
-    this._socket.emit('plan:sync', this._planId, message, () => undefined);
+    this._socket.emit('plan:sync', this._planId, toWire(message), () => undefined);
   }
 }

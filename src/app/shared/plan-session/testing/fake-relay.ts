@@ -8,7 +8,12 @@ import { REMOTE_ORIGIN } from '@rampart/collab/doc/doc-origin';
 import type { SyncError } from '@rampart/collab/sync/errors';
 import type { JoinResult, Response, SyncAck } from '@rampart/collab/sync/events';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
-import { encodeSyncStep1, encodeStep2Update } from '@rampart/collab/sync/wire-codec';
+import {
+  encodeSyncStep1,
+  encodeStep2Update,
+  fromWire,
+  toWire,
+} from '@rampart/collab/sync/wire-codec';
 
 import type { PlanClientSocket } from '../plan-socket';
 
@@ -66,9 +71,10 @@ export class FakeRelay {
     this.toClient('disconnect', 'transport close');
   }
 
-  /** Emits a server→client event. */
+  /** Emits a server→client event; byte arguments go out in wire form (base64), as the relay's. */
   toClient(event: string, ...args: unknown[]): void {
-    for (const h of [...(this._handlers.get(event) ?? [])]) h(...args);
+    const wire = args.map((a) => (a instanceof Uint8Array ? toWire(a) : a));
+    for (const h of [...(this._handlers.get(event) ?? [])]) h(...wire);
   }
 
   releaseAcks(): void {
@@ -91,7 +97,9 @@ export class FakeRelay {
       ack(res);
       this.toClient('plan:synced', planId, encodeSyncStep1(this.doc));
     } else if (event === 'plan:sync') {
-      this._sync(planId, args[1] as Uint8Array, ack);
+      const wire = fromWire(args[1]);
+      if (!wire.ok) throw new Error(`client sent a bad payload: ${wire.reason}`);
+      this._sync(planId, wire.bytes, ack);
     }
   }
 
