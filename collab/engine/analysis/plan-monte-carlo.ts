@@ -31,6 +31,28 @@ export interface PlanMonteCarloOptions {
   shouldCancel?: () => boolean;
 }
 
+/**
+ * Each case's nominal `peaks`: every run's tolerances then refer to the signal's nominal full
+ * scale from t = 0, instead of to the microvolts a net holds before it starts rising (where
+ * steps would otherwise be held to ~1 µs). Computed the same way in every chunk, so split runs
+ * still equal a single one. A case whose nominal run fails gets no scale (its runs then fail or
+ * pass on their own).
+ */
+function nominalPeaks(
+  prep: PreparedPlan,
+  simulate: SimulateFn,
+): Array<Readonly<Record<string, number>> | undefined> {
+  const zeros = new Float64Array(prep.parameters.length);
+  return prep.cases.map((c) => {
+    try {
+      const run = simulateCase(prep, c, valuesAt(prep, c, zeros, zeros), simulate, false, 2);
+      return run.sim.peaks;
+    } catch {
+      return undefined;
+    }
+  });
+}
+
 /** Slot layout: for each case, for each applicable requirement, [margin, relative margin]. */
 function slotLayout(
   prep: PreparedPlan,
@@ -55,6 +77,7 @@ export function planMonteCarloChunk(
   o: PlanMonteCarloOptions,
 ): MonteCarloChunk {
   const layout = slotLayout(prep);
+  const scales = nominalPeaks(prep, simulate);
   return runMonteCarloChunk({
     parameters: prep.parameters,
     seed: o.seed,
@@ -66,7 +89,7 @@ export function planMonteCarloChunk(
     shouldCancel: o.shouldCancel,
     evaluate: ({ x, y }) => {
       const out: number[] = [];
-      for (const c of prep.cases) {
+      for (const [i, c] of prep.cases.entries()) {
         const measures = measureCase(
           prep,
           c,
@@ -77,6 +100,7 @@ export function planMonteCarloChunk(
             simulate,
             false,
             MEASURE_ONLY_OUTPUT_POINTS,
+            scales[i],
           ),
         );
         for (const m of measures) out.push(m.margin ?? Number.NaN, m.relativeMargin ?? Number.NaN);

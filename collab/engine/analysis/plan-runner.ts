@@ -101,6 +101,8 @@ export function netWave(sim: SimResult, net: string): SampledWaveform | undefine
  * @param allNets report every net (nominal runs, closed-form checks); otherwise only signal nets.
  * @param outputPoints evenly spaced output points; default the plan's. Measurements read the
  *   accepted steps (`netWave`), so a caller that only measures may ask for as few as 2.
+ * @param toleranceScale per-net tolerance reference from t = 0 (see `SimOptions`), e.g. the
+ *   nominal run's `peaks` for the runs of a Monte Carlo.
  */
 export function simulateCase(
   prep: PreparedPlan,
@@ -109,6 +111,7 @@ export function simulateCase(
   simulate: SimulateFn,
   allNets = false,
   outputPoints = prep.settings.outputPoints,
+  toleranceScale?: Readonly<Record<string, number>>,
 ): CaseRun {
   const netlist = buildNetlist(prep.plan, c, values);
   const probes = allNets ? undefined : [...new Set(prep.plan.signals.map((s) => s.net))];
@@ -119,6 +122,7 @@ export function simulateCase(
       outputPoints,
       keepSteps: true,
       ...(probes === undefined ? {} : { probes }),
+      ...(toleranceScale === undefined ? {} : { toleranceScale }),
     });
   } catch (err) {
     const why = err instanceof Error ? err.message : String(err);

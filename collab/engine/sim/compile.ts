@@ -49,6 +49,7 @@ export class CompiledCircuit {
   private readonly models: ElementModel[];
   private readonly runner: TransientRunner;
   private readonly signature: string[];
+  private readonly scaleBuffer: Float64Array;
 
   constructor(
     private netlist: Netlist,
@@ -59,6 +60,7 @@ export class CompiledCircuit {
     this.netSet = new Set(this.nets);
     this.models = netlist.elements.map((el) => buildModel(el, this.topo));
     this.signature = netlist.elements.map(signatureOf);
+    this.scaleBuffer = new Float64Array(this.topo.nodeNames.length);
     const solver = new MnaSolver(this.topo.size, this.topo.unknownNames);
     this.runner = new TransientRunner({
       size: this.topo.size,
@@ -87,8 +89,21 @@ export class CompiledCircuit {
       maxStep: Math.min(options.maxStep ?? tStop * SIM_DEFAULTS.maxStepFraction, tStop),
       reltol: options.reltol ?? SIM_DEFAULTS.reltol,
       vntol: options.vntol ?? SIM_DEFAULTS.vntol,
+      scale: this.scaleOf(options.toleranceScale),
     });
     return this.result(options, events, stats);
+  }
+
+  /** `toleranceScale` by node index (unnamed nodes 0), in a buffer reused across runs. */
+  private scaleOf(byNet: SimOptions['toleranceScale']): Float64Array | undefined {
+    if (byNet === undefined) return undefined;
+    const scale = this.scaleBuffer;
+    scale.fill(0);
+    for (const net in byNet) {
+      const i = this.topo.nodeIndex.get(net);
+      if (i !== undefined && i >= 0) scale[i] = byNet[net];
+    }
+    return scale;
   }
 
   private useValues(values: Netlist): void {
@@ -132,7 +147,9 @@ export class CompiledCircuit {
     const nets: Record<NetName, Float64Array> = {};
     for (const net of probes)
       nets[net] = rec.resample(this.topo.nodeIndex.get(net) as number, time);
-    const result: SimResult = { time, nets, events, stats };
+    const peaks: Record<NetName, number> = {};
+    this.topo.nodeNames.forEach((net, i) => (peaks[net] = this.runner.peak(i)));
+    const result: SimResult = { time, nets, events, stats, peaks };
     if (options.keepSteps ?? true) {
       const stepNets: Record<NetName, Float64Array> = {};
       for (const net of probes)

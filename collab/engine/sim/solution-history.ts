@@ -35,13 +35,19 @@ export class SolutionHistory {
   private vntol = 1e-6;
 
   /**
-   * Starts a run: forgets the per-node scales and takes the run's tolerances (kept here rather
-   * than passed on every step, where each number argument would be boxed).
+   * Starts a run: takes the run's tolerances (kept here rather than passed on every step, where
+   * each number argument would be boxed) and resets the per-node scales to `scale` (else 0).
    */
-  startRun(reltol: number, vntol: number): void {
-    this.scale.fill(0);
+  startRun(reltol: number, vntol: number, scale?: Float64Array): void {
+    if (scale === undefined) this.scale.fill(0);
+    else this.scale.set(scale.subarray(0, this.width));
     this.reltol = reltol;
     this.vntol = vntol;
+  }
+
+  /** Largest |v| node `i` reached in the run (or its starting scale, if larger). */
+  peak(i: number): number {
+    return this.scale[i];
   }
 
   clear(): void {

@@ -28,6 +28,8 @@ export interface TransientSettings {
   maxStep: number;
   reltol: number;
   vntol: number;
+  /** Per node unknown: the voltage the relative tolerance refers to from t = 0 (else 0). */
+  scale?: Float64Array;
 }
 
 export interface TransientStats {
@@ -117,6 +119,11 @@ export class TransientRunner {
     return { acceptedSteps: 0, rejectedSteps: 0, newtonIterations: 0, luFactorisations: 0 };
   }
 
+  /** Largest |v| node unknown `i` reached in the last run (its tolerance scale). */
+  peak(i: number): number {
+    return this.history.peak(i);
+  }
+
   /** Runs one transient; models must already hold this run's values. */
   run(settings: TransientSettings): { events: SimEvent[]; stats: TransientStats } {
     this.s = settings;
@@ -125,7 +132,7 @@ export class TransientRunner {
     this.c.solver.resetCount();
     this.linear?.reset();
     this.recorder.clear();
-    this.history.startRun(settings.reltol, settings.vntol);
+    this.history.startRun(settings.reltol, settings.vntol, settings.scale);
     for (const m of this.c.models) m.reset();
     this.collectBreakpoints();
     this.x.fill(0);

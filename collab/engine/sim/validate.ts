@@ -269,7 +269,7 @@ export function validateOptions(options: SimOptions, nets: ReadonlySet<string>):
     throw new NetlistError(`options.${field} must be ${rule} (got ${String(v)})`, { field });
   };
   if (options === null || typeof options !== 'object') bad('tStop', 'given', options);
-  const { tStop, outputPoints, maxStep, reltol, vntol, probes } = options;
+  const { tStop, outputPoints, maxStep, reltol, vntol, probes, toleranceScale } = options;
   if (!positive(tStop)) bad('tStop', 'a finite number > 0', tStop);
   if (
     outputPoints !== undefined &&
@@ -281,6 +281,19 @@ export function validateOptions(options: SimOptions, nets: ReadonlySet<string>):
   if (reltol !== undefined && !(positive(reltol) && reltol <= 0.1))
     bad('reltol', 'in (0, 0.1]', reltol);
   if (vntol !== undefined && !positive(vntol)) bad('vntol', 'a finite number > 0', vntol);
+  if (toleranceScale !== undefined) {
+    if (toleranceScale === null || typeof toleranceScale !== 'object')
+      bad('toleranceScale', 'an object of net → volts', toleranceScale);
+    for (const [net, v] of Object.entries(toleranceScale)) {
+      if (!nets.has(net))
+        throw new NetlistError(`options.toleranceScale: unknown net '${net}'`, {
+          net,
+          field: 'toleranceScale',
+        });
+      if (!(typeof v === 'number' && Number.isFinite(v) && v >= 0))
+        bad(`toleranceScale.${net}`, 'a finite number ≥ 0', v);
+    }
+  }
   for (const p of probes ?? []) {
     if (!nets.has(p))
       throw new NetlistError(`options.probes: unknown net '${p}'`, { net: p, field: 'probes' });

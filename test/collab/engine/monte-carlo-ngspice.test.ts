@@ -112,6 +112,7 @@ describe('Monte Carlo samples re-run in ngspice', () => {
           nets: {},
           events: [],
           stats: { acceptedSteps: 0, rejectedSteps: 0, newtonIterations: 0, luFactorisations: 0 },
+          peaks: {},
         },
         signals,
       });

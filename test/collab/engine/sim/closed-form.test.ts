@@ -108,6 +108,54 @@ describe('RC ramp response', () => {
   });
 });
 
+describe('RC ramp response with the nominal peaks as tolerance scale (as Monte Carlo runs)', () => {
+  // Same closed form as above: v = k·(t' − τ·(1 − e^(−t'/τ))) during the ramp, then relaxing to
+  // k·T with time constant τ (circuit theory, written from memory).
+  const t0 = 2e-4;
+  const rise = 3 * TAU;
+  const k = 3.3 / rise;
+  const during = (tp: number): number => k * (tp - TAU * (1 - Math.exp(-tp / TAU)));
+  const exact = (t: number): number => {
+    const tp = t - t0;
+    if (tp <= 0) return 0;
+    if (tp <= rise) return during(tp);
+    return 3.3 - (3.3 - during(rise)) * Math.exp(-(tp - rise) / TAU);
+  };
+  const circuit = rcCircuit({
+    kind: 'vsource',
+    id: 'V5',
+    pos: 'v5',
+    neg: '0',
+    wave: { kind: 'ramp', t0, rise, v0: 0, v1: 3.3 },
+  });
+  const options = { tStop: t0 + rise + 6 * TAU, outputPoints: 2000 };
+  const plain = simulate(circuit, options);
+  const scaled = simulate(circuit, { ...options, toleranceScale: plain.peaks });
+
+  it('simulate(RC ramp) → peaks are the largest |v| of each net', () => {
+    expect(plain.peaks.v5).toBe(3.3);
+    expectClose(plain.peaks.f, Math.max(...plain.steps!.nets.f), { rel: 1e-12 }, 'peak of f');
+  });
+
+  it('simulate(RC ramp, toleranceScale = peaks) → fewer steps, still within 0.05 % of full scale', () => {
+    expect(scaled.stats.acceptedSteps).toBeLessThan(plain.stats.acceptedSteps);
+    for (let i = 0; i < scaled.time.length; i++) {
+      expectClose(scaled.nets.f[i], exact(scaled.time[i]), { abs: 3.3 * 5e-4 }, `v(f) at ${i}`);
+    }
+    // The crossing of half scale, where a requirement would measure: within 0.1 % of the
+    // closed form's, found by bisection on `exact`.
+    let lo = t0;
+    let hi = t0 + rise + 6 * TAU;
+    for (let n = 0; n < 100; n++) {
+      const mid = (lo + hi) / 2;
+      if (exact(mid) < 1.65) lo = mid;
+      else hi = mid;
+    }
+    const crossing = findCrossings(stepsOf(scaled, 'f'), 1.65, 'rising')[0].t;
+    expectClose(crossing - t0, lo - t0, { rel: 1e-3 }, 'half-scale crossing');
+  });
+});
+
 describe('capacitive and resistive divider', () => {
   const [r1, c1, r2, c2, v] = [100e3, 10e-9, 20e3, 47e-9, 24];
   const t0 = 1e-4;

@@ -195,6 +195,18 @@ describe('simulate options and runtime errors', () => {
     expect(netlistError(() => simulate({ elements: rc }, options)).field).toBe(field);
   });
 
+  it('simulate(toleranceScale with an unknown net, or a negative value) → NetlistError naming it', () => {
+    const unknown = netlistError(() =>
+      simulate({ elements: rc }, { tStop: 1e-3, toleranceScale: { nope: 1 } }),
+    );
+    expect([unknown.net, unknown.field]).toEqual(['nope', 'toleranceScale']);
+    const negative = netlistError(() =>
+      simulate({ elements: rc }, { tStop: 1e-3, toleranceScale: { f: -1 } }),
+    );
+    expect(negative.field).toBe('toleranceScale.f');
+    expect(negative.message).toContain('≥ 0');
+  });
+
   it('simulate(unknown probe) → NetlistError naming the net', () => {
     expect(
       netlistError(() => simulate({ elements: rc }, { tStop: 1e-3, probes: ['nope'] })).net,
