@@ -3,6 +3,10 @@
  *
  *   npm run -s analyze -- <plan.json> [--corners] [--monte-carlo N --seed S]
  *                         [--scenario NAME] [--csv OUT.csv] [--no-curves]
+ *                         [--suggest PART [--series E6|E12|E24|E48|E96]]
+ *
+ * `--suggest` sweeps the part's value over the series (the decade centred on its nominal) with
+ * a corner analysis per value and adds `suggestion` to the result.
  *
  * Errors go to stderr with exit code 1 (2 for bad arguments).
  */
@@ -10,6 +14,11 @@ import { readFileSync, writeFileSync } from 'node:fs';
 import { analyzePlan } from '@rampart/collab/engine/analysis/analyze-plan';
 import { createEngineSimulator } from '@rampart/collab/engine/analysis/engine-simulator';
 import type { AnalysisResult } from '@rampart/collab/engine/analysis/result-types';
+import {
+  suggestValues,
+  type ValueSuggestion,
+} from '@rampart/collab/engine/analysis/value-suggestion';
+import type { ESeriesName } from '@rampart/collab/engine/models/e-series';
 import { parsePlan } from '@rampart/collab/engine/plan/validate-plan';
 
 export interface CliArgs {
@@ -19,6 +28,7 @@ export interface CliArgs {
   scenario?: string;
   csv?: string;
   curves: boolean;
+  suggest?: { partId: string; series: ESeriesName };
 }
 
 export class UsageError extends Error {
@@ -26,7 +36,9 @@ export class UsageError extends Error {
 }
 
 const USAGE =
-  'usage: analyze <plan.json> [--corners] [--monte-carlo N --seed S] [--scenario NAME] [--csv OUT.csv] [--no-curves]';
+  'usage: analyze <plan.json> [--corners] [--monte-carlo N --seed S] [--scenario NAME] [--csv OUT.csv] [--no-curves] [--suggest PART [--series E6|E12|E24|E48|E96]]';
+
+const E_SERIES_NAMES: readonly ESeriesName[] = ['E6', 'E12', 'E24', 'E48', 'E96'];
 
 function integerArg(flag: string, value: string | undefined): number {
   const n = Number(value);
@@ -41,6 +53,8 @@ export function parseArgs(argv: readonly string[]): CliArgs {
   const args: Omit<CliArgs, 'planPath'> = { corners: false, curves: true };
   let runs: number | undefined;
   let seed: number | undefined;
+  let suggest: string | undefined;
+  let series: string | undefined;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === '--corners') args.corners = true;
@@ -49,6 +63,8 @@ export function parseArgs(argv: readonly string[]): CliArgs {
     else if (a === '--seed') seed = integerArg(a, argv[++i]);
     else if (a === '--scenario') args.scenario = argv[++i];
     else if (a === '--csv') args.csv = argv[++i];
+    else if (a === '--suggest') suggest = argv[++i];
+    else if (a === '--series') series = argv[++i];
     else if (a.startsWith('--')) throw new UsageError(`unknown option ${a}\n${USAGE}`);
     else if (planPath === undefined) planPath = a;
     else throw new UsageError(`unexpected argument ${a}\n${USAGE}`);
@@ -57,11 +73,18 @@ export function parseArgs(argv: readonly string[]): CliArgs {
   if (seed !== undefined && runs === undefined)
     throw new UsageError(`--seed needs --monte-carlo N\n${USAGE}`);
   if (runs !== undefined) args.monteCarlo = { runs, seed: seed ?? 1 };
+  if (series !== undefined && suggest === undefined)
+    throw new UsageError(`--series needs --suggest PART\n${USAGE}`);
+  if (series !== undefined && !(E_SERIES_NAMES as readonly string[]).includes(series))
+    throw new UsageError(`--series must be one of ${E_SERIES_NAMES.join(', ')}\n${USAGE}`);
+  if (suggest !== undefined)
+    args.suggest = { partId: suggest, series: (series ?? 'E24') as ESeriesName };
   if (
     (args.scenario === undefined && argv.includes('--scenario')) ||
-    (args.csv === undefined && argv.includes('--csv'))
+    (args.csv === undefined && argv.includes('--csv')) ||
+    (suggest === undefined && argv.includes('--suggest'))
   ) {
-    throw new UsageError(`--scenario and --csv need a value\n${USAGE}`);
+    throw new UsageError(`--scenario, --csv and --suggest need a value\n${USAGE}`);
   }
   return { planPath, ...args };
 }
@@ -103,12 +126,15 @@ export function main(
       );
     }
     const plan = parsePlan(raw);
-    const result = analyzePlan(plan, {
-      simulate: createEngineSimulator(),
+    const simulate = createEngineSimulator();
+    const result: AnalysisResult & { suggestion?: ValueSuggestion } = analyzePlan(plan, {
+      simulate,
       corners: args.corners,
       scenario: args.scenario,
       ...(args.monteCarlo === undefined ? {} : { monteCarlo: args.monteCarlo }),
     });
+    if (args.suggest !== undefined)
+      result.suggestion = suggestValues(plan, args.suggest.partId, args.suggest.series, simulate);
     if (args.csv !== undefined) writeFileSync(args.csv, curvesCsv(result));
     const printed: AnalysisResult = args.curves
       ? result

@@ -2,7 +2,13 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { main, parseArgs } from '../../../server/cli/analyze';
+import { createEngineSimulator } from '@rampart/collab/engine/analysis/engine-simulator';
 import type { AnalysisResult } from '@rampart/collab/engine/analysis/result-types';
+import {
+  suggestValues,
+  type ValueSuggestion,
+} from '@rampart/collab/engine/analysis/value-suggestion';
+import { parsePlan } from '@rampart/collab/engine/plan/validate-plan';
 
 const demo = join(__dirname, '../../../collab/engine/examples/motor-drive.json');
 
@@ -110,4 +116,65 @@ describe('analyze CLI', () => {
     expect(r.code).toBe(1);
     expect(r.err).toMatch(/cannot read plan no-such-plan.json/);
   });
+
+  it('--suggest C1 --series E6 → the suggestion of the engine, for the E6 values of the decade around 100 nF', () => {
+    // An RC delay fed by the input ramp: R1 10 k ±1 %, C1 100 nF ±10 %.
+    const raw = {
+      schemaVersion: 1,
+      name: 'rc delay',
+      nets: [{ id: 'vin' }, { id: 'rc' }],
+      parts: [
+        { id: 'VIN', kind: 'vsource', role: 'input', pos: 'vin', neg: '0', value: 5 },
+        { id: 'R1', kind: 'resistor', a: 'vin', b: 'rc', value: 10e3, tolerance: { percent: 1 } },
+        { id: 'C1', kind: 'capacitor', a: 'rc', b: '0', value: 100e-9, tolerance: { percent: 10 } },
+      ],
+      signals: [
+        { id: 'vin', kind: 'rail', net: 'vin', nominal: 5, thresholds: { half: 2.5 } },
+        { id: 'rc', kind: 'enable', net: 'rc', nominal: 5, thresholds: { half: 2.5 } },
+      ],
+      requirements: [
+        {
+          id: 'delay',
+          kind: 'delay',
+          from: { signal: 'vin', level: 'half' },
+          to: { signal: 'rc', level: 'half' },
+          max: 2e-3,
+        },
+      ],
+      scenarios: [{ id: 'up', kind: 'power-up', temperatures: [25] }],
+      settings: { duration: 10e-3, outputPoints: 200 },
+    };
+    const file = join(mkdtempSync(join(tmpdir(), 'rampart-cli-')), 'rc.json');
+    writeFileSync(file, JSON.stringify(raw));
+    const r = run([file, '--no-curves', '--suggest', 'C1', '--series', 'E6']);
+    expect(r.err).toBe('');
+    expect(r.code).toBe(0);
+    const { suggestion } = JSON.parse(r.out) as { suggestion: ValueSuggestion };
+    // IEC 60063 E6 mantissas 1.0 1.5 2.2 3.3 4.7 6.8, between 100 nF/√10 and 100 nF·√10.
+    expect(suggestion.candidates.map((c) => c.value)).toEqual([
+      33e-9, 47e-9, 68e-9, 100e-9, 150e-9, 220e-9,
+    ]);
+    const direct = suggestValues(parsePlan(raw), 'C1', 'E6', createEngineSimulator());
+    expect(suggestion).toEqual(JSON.parse(JSON.stringify(direct)));
+    // Larger C, longer delay, less margin to the 2 ms maximum: some but not all values fit.
+    expect(suggestion.suitable.length).toBeGreaterThan(0);
+    expect(suggestion.suitable.length).toBeLessThan(6);
+    expect(suggestion.suitable[0]).toBe(33e-9);
+  });
+
+  it('--series E7, --series without --suggest, --suggest of a missing part → clear errors', () => {
+    expect(() => parseArgs(['p.json', '--suggest', 'R4', '--series', 'E7'])).toThrow(
+      /--series must be one of E6, E12, E24, E48, E96/,
+    );
+    expect(() => parseArgs(['p.json', '--series', 'E6'])).toThrow(/--series needs --suggest/);
+    expect(() => parseArgs(['p.json', '--suggest'])).toThrow(/need a value/);
+    expect(parseArgs(['p.json', '--suggest', 'R4']).suggest).toEqual({
+      partId: 'R4',
+      series: 'E24',
+    });
+    const r = run([demo, '--scenario', 'power-up', '--no-curves', '--suggest', 'R99']);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/part R99: not in the plan/);
+    expect(r.out).toBe('');
+  }, 60_000);
 });
