@@ -4,16 +4,23 @@ import { TestBed } from '@angular/core/testing';
 import { firstValueFrom } from 'rxjs';
 
 import { TEAM_ID, apiError, meAs } from '../../testing/account-fixtures';
+import { OfflineCopyRegistry } from '../plan-session/offline-copy-registry';
 import { AuthSession, ME_URL } from './auth-session';
 import { CsrfToken } from './csrf-token';
 
 describe('AuthSession', () => {
   let session: AuthSession;
   let http: HttpTestingController;
+  let clearUser: jest.Mock<Promise<string[]>, [string]>;
 
   beforeEach(() => {
+    clearUser = jest.fn(async (_userId: string) => ['rampart-plan:user-owner:p1']);
     TestBed.configureTestingModule({
-      providers: [provideHttpClient(), provideHttpClientTesting()],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: OfflineCopyRegistry, useValue: { clearUser } },
+      ],
     });
     session = TestBed.inject(AuthSession);
     http = TestBed.inject(HttpTestingController);
@@ -94,10 +101,48 @@ describe('AuthSession', () => {
     http.expectOne('/api/auth/sign-in').flush(meAs('owner'));
     await signIn;
     const done = firstValueFrom(session.signOut());
+    await settle();
     http.expectOne('/api/auth/sign-out').flush(null, { status: 500, statusText: 'Server Error' });
     await expect(done).rejects.toBeDefined();
     expect(session.status()).toBe('signed-out');
     expect(session.user()).toBeNull();
+  });
+
+  it("signOut() → deletes the user's offline copies first, then POST sign-out", async () => {
+    const signIn = firstValueFrom(session.signIn('a@rampart.test', 'pw'));
+    http.expectOne('/api/auth/sign-in').flush(meAs('owner'));
+    await signIn;
+    let release!: (names: string[]) => void;
+    clearUser.mockReturnValueOnce(new Promise((r) => (release = r)));
+    const done = firstValueFrom(session.signOut(), { defaultValue: undefined });
+    await settle();
+    expect(clearUser).toHaveBeenCalledWith('user-owner');
+    // No request while the copies are still being deleted.
+    http.expectNone('/api/auth/sign-out');
+    release(['rampart-plan:user-owner:p1']);
+    await settle();
+    http.expectOne('/api/auth/sign-out').flush(null, { status: 204, statusText: 'No Content' });
+    await done;
+    expect(session.status()).toBe('signed-out');
+  });
+
+  it('signOut() when deleting the copies fails → still signs out', async () => {
+    const signIn = firstValueFrom(session.signIn('a@rampart.test', 'pw'));
+    http.expectOne('/api/auth/sign-in').flush(meAs('editor'));
+    await signIn;
+    clearUser.mockRejectedValueOnce(new Error('IndexedDB broken'));
+    const done = firstValueFrom(session.signOut(), { defaultValue: undefined });
+    await settle();
+    http.expectOne('/api/auth/sign-out').flush(null, { status: 204, statusText: 'No Content' });
+    await done;
+    expect(clearUser).toHaveBeenCalledWith('user-editor');
+    expect(session.status()).toBe('signed-out');
+  });
+
+  it('signOut() with nobody signed in → nothing to delete, POST at once', () => {
+    session.signOut().subscribe({ error: () => undefined });
+    http.expectOne('/api/auth/sign-out').flush(null, { status: 204, statusText: 'No Content' });
+    expect(clearUser).not.toHaveBeenCalled();
   });
 
   it('password calls → the contract routes and bodies', async () => {
@@ -126,3 +171,8 @@ describe('AuthSession', () => {
     await confirm;
   });
 });
+
+/** Lets pending promises (the copy deletion) run. */
+function settle(): Promise<void> {
+  return new Promise((resolve) => setTimeout(resolve));
+}

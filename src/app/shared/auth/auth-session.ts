@@ -1,6 +1,17 @@
 import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, catchError, finalize, map, of, shareReplay, tap, throwError } from 'rxjs';
+import {
+  Observable,
+  catchError,
+  defer,
+  finalize,
+  map,
+  of,
+  shareReplay,
+  switchMap,
+  tap,
+  throwError,
+} from 'rxjs';
 
 import type {
   ChangePasswordRequest,
@@ -12,6 +23,7 @@ import type {
   UserDto,
 } from '@rampart/collab/api/accounts';
 
+import { OfflineCopyRegistry } from '../plan-session/offline-copy-registry';
 import { CsrfToken } from './csrf-token';
 
 /** Whether we know who is signed in yet. */
@@ -28,6 +40,7 @@ export const ME_URL = '/api/auth/me';
 export class AuthSession {
   private readonly _http = inject(HttpClient);
   private readonly _csrf = inject(CsrfToken);
+  private readonly _offlineCopies = inject(OfflineCopyRegistry);
   private readonly _me = signal<MeResponse | null>(null);
   private readonly _status = signal<SessionStatus>('unknown');
   private _loading$?: Observable<MeResponse | null>;
@@ -94,9 +107,18 @@ export class AuthSession {
     );
   }
 
-  /** `POST /api/auth/sign-out`. The local state is cleared even if the request fails. */
+  /**
+   * Deletes this browser's offline copies of the user's plans (unsent edits in them are lost: ask
+   * first, see `UserMenu`), then `POST /api/auth/sign-out`. The local state is cleared even if
+   * the request fails.
+   */
   signOut(): Observable<void> {
-    return this._http.post<void>('/api/auth/sign-out', {}).pipe(
+    const userId = this.user()?.id;
+    const cleared = defer(() => (userId ? this._offlineCopies.clearUser(userId) : of([])));
+    return cleared.pipe(
+      // A copy that cannot be deleted must not keep the user signed in.
+      catchError(() => of([])),
+      switchMap(() => this._http.post<void>('/api/auth/sign-out', {})),
       finalize(() => {
         this._csrf.forget();
         this._clear();

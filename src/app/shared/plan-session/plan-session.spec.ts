@@ -43,7 +43,13 @@ describe('PlanSessions', () => {
         { provide: PlanSocketFactory, useValue: { open: () => relay.socket } },
         {
           provide: OfflineCopies,
-          useValue: { attach: () => ({ loaded: Promise.resolve(), destroy: () => undefined }) },
+          useValue: {
+            attach: () => ({
+              loaded: Promise.resolve({ hasPlan: false, unsentEdits: 0 }),
+              setUnsentEdits: () => undefined,
+              destroy: () => undefined,
+            }),
+          },
         },
       ],
     });

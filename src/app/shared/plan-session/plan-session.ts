@@ -3,7 +3,7 @@ import { Awareness } from 'y-protocols/awareness';
 import * as Y from 'yjs';
 
 import type { Role } from '@rampart/collab/api/accounts';
-import { localOrigin, type LocalOrigin } from '@rampart/collab/doc/doc-origin';
+import { REMOTE_ORIGIN, localOrigin, type LocalOrigin } from '@rampart/collab/doc/doc-origin';
 import type { EditRecord } from '@rampart/collab/doc/edit-record';
 import { createPlanUndo, type PlanUndo } from '@rampart/collab/doc/plan-undo';
 import type { SyncError } from '@rampart/collab/sync/errors';
@@ -63,6 +63,7 @@ export class PlanSession {
   private readonly _role = signal<Role | null>(null);
   private readonly _readOnly = signal(false);
   private readonly _unsent = signal(false);
+  private readonly _unsentEdits = signal(0);
   private readonly _error = signal<SyncError | null>(null);
   private readonly _presence = signal<readonly PresencePeer[]>([]);
   private readonly _revision = signal(0);
@@ -76,13 +77,21 @@ export class PlanSession {
 
   /** `connecting` | `synced` | `offline` | `read-only`. */
   readonly state: Signal<ConnectionState> = this._state.asReadonly();
-  /** Whether the stored plan has arrived at least once (false: show a loading state). */
+  /**
+   * Whether the doc holds the plan, from the relay or from this browser's offline copy (a reload
+   * while offline shows the copy); false: show a loading state.
+   */
   readonly loaded: Signal<boolean> = this._loaded.asReadonly();
   readonly role: Signal<Role | null> = this._role.asReadonly();
   /** True for viewers and reviewers: the UI must not offer edits. */
   readonly readOnly: Signal<boolean> = this._readOnly.asReadonly();
   /** Some local change has not been acknowledged as stored by the server yet. */
   readonly hasUnsentEdits: Signal<boolean> = this._unsent.asReadonly();
+  /**
+   * How many edits made in this browser the server has not acknowledged yet (kept with the
+   * offline copy, so a reload restores it); 0 once everything is stored.
+   */
+  readonly unsentEdits: Signal<number> = this._unsentEdits.asReadonly();
   /** The latest error to show (update denied, access revoked…); null when none. */
   readonly error: Signal<SyncError | null> = this._error.asReadonly();
   /** Everyone with the plan open, this tab first. */
@@ -126,7 +135,10 @@ export class PlanSession {
         this._state.set(this._readOnly() ? 'read-only' : 'synced');
       },
       offline: () => this._state.set('offline'),
-      unsent: (v) => this._unsent.set(v),
+      unsent: (v) => {
+        this._unsent.set(v);
+        if (!v) this._countUnsent(0);
+      },
       error: (e) => this._error.set(e),
       accessChanged: (role, readOnly) => {
         this._role.set(role);
@@ -141,8 +153,19 @@ export class PlanSession {
 
   /** Starts syncing once the offline copy (if any) has been merged into the doc. */
   async start(): Promise<void> {
-    await this._offline?.loaded;
-    if (!this._closed) this._link.start();
+    const stored = await this._offline?.loaded;
+    if (this._closed) return;
+    if (stored?.hasPlan) this._loaded.set(true);
+    if (stored && stored.unsentEdits > 0) {
+      this._unsentEdits.set(stored.unsentEdits);
+      this._unsent.set(true);
+    }
+    // Registered before the link's own listener, so an ack that arrives within the same update
+    // (it can, from an in-memory relay) resets a count that already includes the edit.
+    this.doc.on('update', (_update: Uint8Array, origin: unknown) => {
+      if (origin !== REMOTE_ORIGIN) this._countUnsent(this._unsentEdits() + 1);
+    });
+    this._link.start();
   }
 
   /**
@@ -196,6 +219,12 @@ export class PlanSession {
     this._offline?.destroy();
     // Destroying the doc also destroys its awareness (and the awareness interval timer).
     this.doc.destroy();
+  }
+
+  private _countUnsent(count: number): void {
+    if (count === this._unsentEdits()) return;
+    this._unsentEdits.set(count);
+    this._offline?.setUnsentEdits(count);
   }
 
   /** Merges a presence change and sends it, throttled: presence can cost more than edits. */

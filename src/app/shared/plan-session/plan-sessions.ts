@@ -6,7 +6,8 @@ import { PlanSocketFactory } from './plan-socket';
 
 /**
  * Opens live plan sessions. Each session owns its socket, doc and offline copy, so a page opens
- * one on init and closes it on destroy; nothing outlives the page.
+ * one on init and closes it on destroy; nothing outlives the page but the offline copy, which
+ * stays in this browser until the user signs out.
  */
 @Injectable({ providedIn: 'root' })
 export class PlanSessions {
