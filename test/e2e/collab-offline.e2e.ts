@@ -6,17 +6,19 @@ import { Client } from 'pg';
 import type { BrowserContext, Page, WebSocketRoute } from 'playwright-core';
 import * as Y from 'yjs';
 
-import type { MeResponse, PlanSummaryDto } from '@rampart/collab/api/accounts';
 import { readEntry } from '@rampart/collab/doc/doc-to-plan';
 import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 
-import { ApiClient } from '../utils/api-client';
-import { launchBrowser, type TestBrowser } from '../utils/browser';
+import {
+  DEMO_PASSWORD,
+  demoPlanId,
+  openAs,
+  valueInput,
+  type Person,
+} from '../utils/live-plan-browser';
 import { startTestServer, type TestServer } from '../utils/test-server';
 
 const shots = path.resolve(__dirname, '../../dist/screenshots');
-const PASSWORD = 'rampart-demo';
-const DEMO_SLUG = 'motor-drive-controller';
 
 /**
  * Cuts one browser's link to the relay while its pages still load: the app has no service
@@ -65,42 +67,21 @@ class RelayLink {
   }
 }
 
-interface Person {
-  email: string;
-  name: string;
-  id?: string;
-  browser?: TestBrowser;
+/** A demo user whose relay link the test can cut. */
+interface OfflinePerson extends Person {
   relay?: RelayLink;
-  page?: Page;
-  errors: string[];
 }
 
-/** Signs in over the API and hands the session cookie to a fresh browser profile. */
-async function openAs(server: TestServer, person: Person, planId: string): Promise<Page> {
-  const api = new ApiClient(server.url);
-  await api.signIn(person.email, PASSWORD);
-  person.id = (await api.get<MeResponse>('/api/auth/me')).body.user.id;
-  person.browser = await launchBrowser();
-  const { context } = person.browser;
-  person.relay = await RelayLink.install(context);
-  await context.addCookies(
-    [...api.cookies].map(([name, value]) => ({ name, value, url: server.url })),
-  );
-  const page = await context.newPage();
-  page.on('console', (m) => {
+/** `openAs` with the person's relay connections routed through a `RelayLink`. */
+function openCuttable(server: TestServer, person: OfflinePerson, planId: string): Promise<Page> {
+  return openAs(server, person, planId, {
+    prepare: async (context) => {
+      person.relay = await RelayLink.install(context);
+    },
     // While cut, Chromium logs each refused relay request; those are the test's own doing.
-    if (m.type() === 'error' && !/socket\.io|ERR_INTERNET_DISCONNECTED/.test(m.text())) {
-      person.errors.push(m.text());
-    }
+    ignoreConsole: /socket\.io|ERR_INTERNET_DISCONNECTED/,
   });
-  page.on('pageerror', (e) => person.errors.push(e.message));
-  await page.goto(`${server.url}/plans/${planId}`);
-  person.page = page;
-  return page;
 }
-
-const valueInput = (page: Page, part: string) =>
-  page.locator(`tr[data-part="${part}"] input[data-field="value"]`);
 
 /** Waits until the R4 value field of `page` reads `text`. */
 async function r4Reads(page: Page, text: string): Promise<void> {
@@ -183,19 +164,22 @@ async function storedR4(server: TestServer, planId: string): Promise<number> {
 describe('live plan offline: kept across a reload, merged when back, cleared at sign-out', () => {
   let server: TestServer;
   let planId: string;
-  const owner: Person = { email: 'olivia.owner@rampart.test', name: 'Olivia Owner', errors: [] };
-  const editor: Person = { email: 'eddie.editor@rampart.test', name: 'Eddie Editor', errors: [] };
+  const owner: OfflinePerson = {
+    email: 'olivia.owner@rampart.test',
+    name: 'Olivia Owner',
+    errors: [],
+  };
+  const editor: OfflinePerson = {
+    email: 'eddie.editor@rampart.test',
+    name: 'Eddie Editor',
+    errors: [],
+  };
   const copyName = () => `rampart-plan:${editor.id}:${planId}`;
 
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
     mkdirSync(shots, { recursive: true });
-    const api = new ApiClient(server.url);
-    await api.signIn(owner.email, PASSWORD);
-    const plans = await api.get<PlanSummaryDto[]>('/api/plans');
-    const demo = plans.body.find((p) => p.slug === DEMO_SLUG);
-    if (!demo) throw new Error(`demo plan ${DEMO_SLUG} missing: ${JSON.stringify(plans.body)}`);
-    planId = demo.id;
+    planId = await demoPlanId(server, owner.email);
   }, 60_000);
 
   afterAll(async () => {
@@ -204,8 +188,8 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
   });
 
   test('edit while cut off → unsent, survives a reload, merged on reconnect for everyone', async () => {
-    const a = await openAs(server, owner, planId);
-    const b = await openAs(server, editor, planId);
+    const a = await openCuttable(server, owner, planId);
+    const b = await openCuttable(server, editor, planId);
     for (const page of [a, b]) {
       await page.getByTestId('connection-state').getByText('Live').waitFor({ timeout: 15_000 });
     }
@@ -298,7 +282,7 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
     // comes back: the plan opens with the server's value.
     editor.relay!.restore();
     await b.getByLabel('E-mail').fill(editor.email);
-    await b.getByLabel('Password').fill(PASSWORD);
+    await b.getByLabel('Password').fill(DEMO_PASSWORD);
     await b.getByRole('button', { name: 'Sign in' }).click();
     await b.getByTestId('user-menu').waitFor();
     expect((await databaseNames(b)).filter((n) => n.startsWith(prefix))).toEqual([]);

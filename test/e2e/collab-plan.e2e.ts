@@ -2,46 +2,10 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 
-import type { Page } from 'playwright-core';
-
-import type { PlanSummaryDto } from '@rampart/collab/api/accounts';
-
-import { ApiClient } from '../utils/api-client';
-import { launchBrowser, type TestBrowser } from '../utils/browser';
+import { demoPlanId, openAs, valueInput, type Person } from '../utils/live-plan-browser';
 import { startTestServer, type TestServer } from '../utils/test-server';
 
 const shots = path.resolve(__dirname, '../../dist/screenshots');
-const PASSWORD = 'rampart-demo';
-const DEMO_SLUG = 'motor-drive-controller';
-
-interface Person {
-  email: string;
-  name: string;
-  browser?: TestBrowser;
-  page?: Page;
-  errors: string[];
-}
-
-/** Signs in over the API and hands the session cookie to a fresh browser profile. */
-async function openAs(server: TestServer, person: Person, planId: string): Promise<Page> {
-  const api = new ApiClient(server.url);
-  await api.signIn(person.email, PASSWORD);
-  person.browser = await launchBrowser();
-  await person.browser.context.addCookies(
-    [...api.cookies].map(([name, value]) => ({ name, value, url: server.url })),
-  );
-  const page = await person.browser.context.newPage();
-  page.on('console', (m) => {
-    if (m.type() === 'error') person.errors.push(m.text());
-  });
-  page.on('pageerror', (e) => person.errors.push(e.message));
-  await page.goto(`${server.url}/plans/${planId}`);
-  person.page = page;
-  return page;
-}
-
-const valueInput = (page: Page, part: string, field: 'value' | 'tolerance') =>
-  page.locator(`tr[data-part="${part}"] input[data-field="${field}"]`);
 
 describe('live plan in two browsers and a viewer', () => {
   let server: TestServer;
@@ -53,12 +17,7 @@ describe('live plan in two browsers and a viewer', () => {
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
     mkdirSync(shots, { recursive: true });
-    const api = new ApiClient(server.url);
-    await api.signIn(owner.email, PASSWORD);
-    const plans = await api.get<PlanSummaryDto[]>('/api/plans');
-    const demo = plans.body.find((p) => p.slug === DEMO_SLUG);
-    if (!demo) throw new Error(`demo plan ${DEMO_SLUG} missing: ${JSON.stringify(plans.body)}`);
-    planId = demo.id;
+    planId = await demoPlanId(server, owner.email);
   }, 60_000);
 
   afterAll(async () => {

@@ -9,6 +9,7 @@ import {
   type ValueSuggestion,
 } from '@rampart/collab/engine/analysis/value-suggestion';
 import { parsePlan } from '@rampart/collab/engine/plan/validate-plan';
+import { rcDelayPlanJson } from './rc-delay-plan';
 
 const demo = join(__dirname, '../../../collab/engine/examples/motor-drive.json');
 
@@ -118,32 +119,8 @@ describe('analyze CLI', () => {
   });
 
   it('--suggest C1 --series E6 → the suggestion of the engine, for the E6 values of the decade around 100 nF', () => {
-    // An RC delay fed by the input ramp: R1 10 k ±1 %, C1 100 nF ±10 %.
-    const raw = {
-      schemaVersion: 1,
-      name: 'rc delay',
-      nets: [{ id: 'vin' }, { id: 'rc' }],
-      parts: [
-        { id: 'VIN', kind: 'vsource', role: 'input', pos: 'vin', neg: '0', value: 5 },
-        { id: 'R1', kind: 'resistor', a: 'vin', b: 'rc', value: 10e3, tolerance: { percent: 1 } },
-        { id: 'C1', kind: 'capacitor', a: 'rc', b: '0', value: 100e-9, tolerance: { percent: 10 } },
-      ],
-      signals: [
-        { id: 'vin', kind: 'rail', net: 'vin', nominal: 5, thresholds: { half: 2.5 } },
-        { id: 'rc', kind: 'enable', net: 'rc', nominal: 5, thresholds: { half: 2.5 } },
-      ],
-      requirements: [
-        {
-          id: 'delay',
-          kind: 'delay',
-          from: { signal: 'vin', level: 'half' },
-          to: { signal: 'rc', level: 'half' },
-          max: 2e-3,
-        },
-      ],
-      scenarios: [{ id: 'up', kind: 'power-up', temperatures: [25] }],
-      settings: { duration: 10e-3, outputPoints: 200 },
-    };
+    // An RC delay fed by the input ramp: R1 10 k ±1 %, C1 100 nF ±10 % X7R, at 25 °C only.
+    const raw = rcDelayPlanJson([25]);
     const file = join(mkdtempSync(join(tmpdir(), 'rampart-cli-')), 'rc.json');
     writeFileSync(file, JSON.stringify(raw));
     const r = run([file, '--no-curves', '--suggest', 'C1', '--series', 'E6']);

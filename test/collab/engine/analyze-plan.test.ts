@@ -9,41 +9,10 @@ import { preparePlan } from '@rampart/collab/engine/analysis/plan-runner';
 import { parsePlan } from '@rampart/collab/engine/plan/validate-plan';
 import { suggestValues } from '@rampart/collab/engine/analysis/value-suggestion';
 import { ConvergenceError } from '@rampart/collab/engine/sim/simulate';
+import { rcDelayPlanJson } from './rc-delay-plan';
 
 // An RC delay fed by the input ramp (0 → 5 V in 1 ms): R1 10 k ±1 %, C1 100 nF ±10 % X7R.
-const rcPlan = parsePlan({
-  schemaVersion: 1,
-  name: 'rc delay',
-  nets: [{ id: 'vin' }, { id: 'rc' }],
-  parts: [
-    { id: 'VIN', kind: 'vsource', role: 'input', pos: 'vin', neg: '0', value: 5 },
-    { id: 'R1', kind: 'resistor', a: 'vin', b: 'rc', value: 10e3, tolerance: { percent: 1 } },
-    {
-      id: 'C1',
-      kind: 'capacitor',
-      a: 'rc',
-      b: '0',
-      value: 100e-9,
-      tolerance: { percent: 10 },
-      temperature: { kind: 'dielectric', class: 'X7R' },
-    },
-  ],
-  signals: [
-    { id: 'vin', kind: 'rail', net: 'vin', nominal: 5, thresholds: { half: 2.5 } },
-    { id: 'rc', kind: 'enable', net: 'rc', nominal: 5, thresholds: { half: 2.5 } },
-  ],
-  requirements: [
-    {
-      id: 'delay',
-      kind: 'delay',
-      from: { signal: 'vin', level: 'half' },
-      to: { signal: 'rc', level: 'half' },
-      max: 2e-3,
-    },
-  ],
-  scenarios: [{ id: 'up', kind: 'power-up', temperatures: [25, 125] }],
-  settings: { duration: 10e-3, outputPoints: 1000 },
-});
+const rcPlan = parsePlan(rcDelayPlanJson());
 
 /** Closed-form delay from vin = 2.5 V (t = 0.5 ms) to rc = 2.5 V for a given τ (bisection). */
 function rampDelay(tau: number): number {

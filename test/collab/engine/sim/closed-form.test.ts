@@ -65,29 +65,31 @@ describe('RC step response v = V·(1 − e^(−t/τ))', () => {
   });
 });
 
+// RC ramp: input k·t' for 0 ≤ t' ≤ T (t' = t − t0), then held at k·T. During the ramp
+// v = k·(t' − τ·(1 − e^(−t'/τ))); afterwards v relaxes to k·T with time constant τ.
+const RAMP = { t0: 2e-4, rise: 3 * TAU, v1: 3.3 };
+const rampK = RAMP.v1 / RAMP.rise;
+const rampDuring = (tp: number): number => rampK * (tp - TAU * (1 - Math.exp(-tp / TAU)));
+function rampExact(t: number): number {
+  const tp = t - RAMP.t0;
+  if (tp <= 0) return 0;
+  if (tp <= RAMP.rise) return rampDuring(tp);
+  return RAMP.v1 - (RAMP.v1 - rampDuring(RAMP.rise)) * Math.exp(-(tp - RAMP.rise) / TAU);
+}
+const rampCircuit = rcCircuit({
+  kind: 'vsource',
+  id: 'V5',
+  pos: 'v5',
+  neg: '0',
+  wave: { kind: 'ramp', t0: RAMP.t0, rise: RAMP.rise, v0: 0, v1: RAMP.v1 },
+});
+const rampOptions = { tStop: RAMP.t0 + RAMP.rise + 6 * TAU, outputPoints: 2000 };
+
 describe('RC ramp response', () => {
-  // Input k·t' for 0 ≤ t' ≤ T (t' = t − t0), then held at k·T. During the ramp
-  // v = k·(t' − τ·(1 − e^(−t'/τ))); afterwards v relaxes to k·T with time constant τ.
-  const t0 = 2e-4;
-  const rise = 3 * TAU;
-  const k = 3.3 / rise;
-  const during = (tp: number): number => k * (tp - TAU * (1 - Math.exp(-tp / TAU)));
-  const exact = (t: number): number => {
-    const tp = t - t0;
-    if (tp <= 0) return 0;
-    if (tp <= rise) return during(tp);
-    return 3.3 - (3.3 - during(rise)) * Math.exp(-(tp - rise) / TAU);
-  };
-  const r = simulate(
-    rcCircuit({
-      kind: 'vsource',
-      id: 'V5',
-      pos: 'v5',
-      neg: '0',
-      wave: { kind: 'ramp', t0, rise, v0: 0, v1: 3.3 },
-    }),
-    { tStop: t0 + rise + 6 * TAU, outputPoints: 2000 },
-  );
+  const { t0, rise } = RAMP;
+  const k = rampK;
+  const exact = rampExact;
+  const r = simulate(rampCircuit, rampOptions);
 
   it('simulate(RC ramp) → output grid within 0.05 % of full scale of the closed form', () => {
     for (let i = 0; i < r.time.length; i++) {
@@ -109,28 +111,10 @@ describe('RC ramp response', () => {
 });
 
 describe('RC ramp response with the nominal peaks as tolerance scale (as Monte Carlo runs)', () => {
-  // Same closed form as above: v = k·(t' − τ·(1 − e^(−t'/τ))) during the ramp, then relaxing to
-  // k·T with time constant τ (circuit theory, written from memory).
-  const t0 = 2e-4;
-  const rise = 3 * TAU;
-  const k = 3.3 / rise;
-  const during = (tp: number): number => k * (tp - TAU * (1 - Math.exp(-tp / TAU)));
-  const exact = (t: number): number => {
-    const tp = t - t0;
-    if (tp <= 0) return 0;
-    if (tp <= rise) return during(tp);
-    return 3.3 - (3.3 - during(rise)) * Math.exp(-(tp - rise) / TAU);
-  };
-  const circuit = rcCircuit({
-    kind: 'vsource',
-    id: 'V5',
-    pos: 'v5',
-    neg: '0',
-    wave: { kind: 'ramp', t0, rise, v0: 0, v1: 3.3 },
-  });
-  const options = { tStop: t0 + rise + 6 * TAU, outputPoints: 2000 };
-  const plain = simulate(circuit, options);
-  const scaled = simulate(circuit, { ...options, toleranceScale: plain.peaks });
+  const { t0, rise } = RAMP;
+  const exact = rampExact;
+  const plain = simulate(rampCircuit, rampOptions);
+  const scaled = simulate(rampCircuit, { ...rampOptions, toleranceScale: plain.peaks });
 
   it('simulate(RC ramp) → peaks are the largest |v| of each net', () => {
     expect(plain.peaks.v5).toBe(3.3);
