@@ -8,7 +8,6 @@ import {
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 
 import { toApiProblem } from '../../shared/api/api-error';
@@ -16,16 +15,15 @@ import { AuthSession } from '../../shared/auth/auth-session';
 import {
   NEW_PASSWORD_VALIDATORS,
   revalidateOn,
-  PASSWORD_MIN_LENGTH,
   differsFromSibling,
   fieldMessage,
   matchesSibling,
 } from '../../shared/forms/field-message';
 import { FormCard } from '../../shared/forms/form-card';
+import { NewPasswordFields } from '../../shared/forms/new-password-fields';
 import { FormMessage } from '../../shared/forms/form-message';
+import { SubmitButton } from '../../shared/forms/submit-button';
 import { applyServerErrors } from '../../shared/forms/server-errors';
-
-type Field = 'currentPassword' | 'newPassword' | 'repeat';
 
 /** Change the signed-in user's password (needs the current one). */
 @Component({
@@ -36,9 +34,10 @@ type Field = 'currentPassword' | 'newPassword' | 'repeat';
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressSpinnerModule,
     FormCard,
+    NewPasswordFields,
     FormMessage,
+    SubmitButton,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -62,29 +61,11 @@ type Field = 'currentPassword' | 'newPassword' | 'repeat';
           />
           <mat-error>{{ message('currentPassword', 'Current password') }}</mat-error>
         </mat-form-field>
-        <mat-form-field>
-          <mat-label>New password</mat-label>
-          <input
-            matInput
-            formControlName="newPassword"
-            type="password"
-            autocomplete="new-password"
-          />
-          <mat-hint>At least {{ minLength }} characters</mat-hint>
-          <mat-error>{{ message('newPassword', 'New password') }}</mat-error>
-        </mat-form-field>
-        <mat-form-field>
-          <mat-label>Repeat new password</mat-label>
-          <input matInput formControlName="repeat" type="password" autocomplete="new-password" />
-          <mat-error>{{ message('repeat', 'Repeated password') }}</mat-error>
-        </mat-form-field>
+        <rp-new-password-fields passwordName="newPassword" />
         <div class="actions">
-          <button matButton="filled" type="submit" [disabled]="pending()">
-            @if (pending()) {
-              <mat-spinner diameter="18" aria-label="Saving" />
-            }
-            Change password
-          </button>
+          <rp-submit-button [pending]="pending()" busyLabel="Saving"
+            >Change password</rp-submit-button
+          >
           <a matButton routerLink="/teams">Cancel</a>
         </div>
       </form>
@@ -96,7 +77,6 @@ export class ChangePassword {
   private readonly _session = inject(AuthSession);
   private readonly _formDirective = viewChild.required(FormGroupDirective);
 
-  protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
     currentPassword: ['', [Validators.required]],
     newPassword: ['', [...NEW_PASSWORD_VALIDATORS, differsFromSibling('currentPassword')]],
@@ -107,12 +87,11 @@ export class ChangePassword {
   protected readonly formError = signal<string | null>(null);
 
   constructor() {
-    const { currentPassword, newPassword, repeat } = this.form.controls;
-    revalidateOn(currentPassword, newPassword);
-    revalidateOn(newPassword, repeat);
+    // The repetition follows the new password inside rp-new-password-fields.
+    revalidateOn(this.form.controls.currentPassword, this.form.controls.newPassword);
   }
 
-  protected message(name: Field, label: string): string {
+  protected message(name: 'currentPassword', label: string): string {
     return fieldMessage(this.form.controls[name], label);
   }
 

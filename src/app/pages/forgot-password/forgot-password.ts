@@ -3,7 +3,6 @@ import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angula
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { RouterLink } from '@angular/router';
 
 import { toApiProblem } from '../../shared/api/api-error';
@@ -11,6 +10,7 @@ import { AuthSession } from '../../shared/auth/auth-session';
 import { fieldMessage } from '../../shared/forms/field-message';
 import { FormCard } from '../../shared/forms/form-card';
 import { FormMessage } from '../../shared/forms/form-message';
+import { SubmitButton } from '../../shared/forms/submit-button';
 import { applyServerErrors } from '../../shared/forms/server-errors';
 
 /** Asks for a reset link. The answer is the same whether or not the address has an account. */
@@ -22,9 +22,9 @@ import { applyServerErrors } from '../../shared/forms/server-errors';
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressSpinnerModule,
     FormCard,
     FormMessage,
+    SubmitButton,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -49,12 +49,9 @@ import { applyServerErrors } from '../../shared/forms/server-errors';
           <mat-error>{{ emailMessage() }}</mat-error>
         </mat-form-field>
         <div class="actions">
-          <button matButton="filled" type="submit" [disabled]="pending()">
-            @if (pending()) {
-              <mat-spinner diameter="18" aria-label="Sending" />
-            }
-            Send reset link
-          </button>
+          <rp-submit-button [pending]="pending()" busyLabel="Sending"
+            >Send reset link</rp-submit-button
+          >
           <a matButton routerLink="/sign-in">Back to sign in</a>
         </div>
       </form>

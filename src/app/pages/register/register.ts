@@ -3,7 +3,6 @@ import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angula
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router, RouterLink } from '@angular/router';
 
 import { toApiProblem } from '../../shared/api/api-error';
@@ -11,16 +10,16 @@ import { AuthSession } from '../../shared/auth/auth-session';
 import { safeReturnUrl } from '../../shared/auth/return-url';
 import {
   NEW_PASSWORD_VALIDATORS,
-  revalidateOn,
-  PASSWORD_MIN_LENGTH,
   fieldMessage,
   matchesSibling,
 } from '../../shared/forms/field-message';
 import { FormCard } from '../../shared/forms/form-card';
+import { NewPasswordFields } from '../../shared/forms/new-password-fields';
 import { FormMessage } from '../../shared/forms/form-message';
+import { SubmitButton } from '../../shared/forms/submit-button';
 import { applyServerErrors } from '../../shared/forms/server-errors';
 
-type Field = 'name' | 'email' | 'password' | 'repeat';
+type Field = 'name' | 'email';
 
 /** Create an account (and be signed in), then continue to `returnUrl` (often an invitation). */
 @Component({
@@ -31,9 +30,10 @@ type Field = 'name' | 'email' | 'password' | 'repeat';
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressSpinnerModule,
     FormCard,
+    NewPasswordFields,
     FormMessage,
+    SubmitButton,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -57,24 +57,11 @@ type Field = 'name' | 'email' | 'password' | 'repeat';
           <input matInput formControlName="email" type="email" autocomplete="email" />
           <mat-error>{{ message('email', 'E-mail') }}</mat-error>
         </mat-form-field>
-        <mat-form-field>
-          <mat-label>Password</mat-label>
-          <input matInput formControlName="password" type="password" autocomplete="new-password" />
-          <mat-hint>At least {{ minLength }} characters</mat-hint>
-          <mat-error>{{ message('password', 'Password') }}</mat-error>
-        </mat-form-field>
-        <mat-form-field>
-          <mat-label>Repeat password</mat-label>
-          <input matInput formControlName="repeat" type="password" autocomplete="new-password" />
-          <mat-error>{{ message('repeat', 'Repeated password') }}</mat-error>
-        </mat-form-field>
+        <rp-new-password-fields label="Password" />
         <div class="actions">
-          <button matButton="filled" type="submit" [disabled]="pending()">
-            @if (pending()) {
-              <mat-spinner diameter="18" aria-label="Creating the account" />
-            }
-            Create account
-          </button>
+          <rp-submit-button [pending]="pending()" busyLabel="Creating the account"
+            >Create account</rp-submit-button
+          >
         </div>
       </form>
       <p class="switch">
@@ -94,7 +81,6 @@ export class Register implements OnInit {
   /** `?email=`: prefilled from an invitation. */
   readonly email = input<string>();
 
-  protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
     name: ['', [Validators.required, Validators.maxLength(120)]],
     email: ['', [Validators.required, Validators.email, Validators.maxLength(254)]],
@@ -103,10 +89,6 @@ export class Register implements OnInit {
   });
   protected readonly pending = signal(false);
   protected readonly formError = signal<string | null>(null);
-
-  constructor() {
-    revalidateOn(this.form.controls.password, this.form.controls.repeat);
-  }
 
   ngOnInit(): void {
     const email = this.email();

@@ -3,20 +3,15 @@ import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angula
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router, RouterLink } from '@angular/router';
 
 import { toApiProblem } from '../../shared/api/api-error';
 import { AuthSession } from '../../shared/auth/auth-session';
-import {
-  NEW_PASSWORD_VALIDATORS,
-  revalidateOn,
-  PASSWORD_MIN_LENGTH,
-  fieldMessage,
-  matchesSibling,
-} from '../../shared/forms/field-message';
+import { NEW_PASSWORD_VALIDATORS, matchesSibling } from '../../shared/forms/field-message';
 import { FormCard } from '../../shared/forms/form-card';
+import { NewPasswordFields } from '../../shared/forms/new-password-fields';
 import { FormMessage } from '../../shared/forms/form-message';
+import { SubmitButton } from '../../shared/forms/submit-button';
 import { applyServerErrors } from '../../shared/forms/server-errors';
 
 /**
@@ -31,9 +26,10 @@ import { applyServerErrors } from '../../shared/forms/server-errors';
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressSpinnerModule,
     FormCard,
+    NewPasswordFields,
     FormMessage,
+    SubmitButton,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -50,29 +46,11 @@ import { applyServerErrors } from '../../shared/forms/server-errors';
           </rp-form-message>
         }
         <form [formGroup]="form" (ngSubmit)="submit()" novalidate>
-          <mat-form-field>
-            <mat-label>New password</mat-label>
-            <input
-              matInput
-              formControlName="password"
-              type="password"
-              autocomplete="new-password"
-            />
-            <mat-hint>At least {{ minLength }} characters</mat-hint>
-            <mat-error>{{ message('password', 'New password') }}</mat-error>
-          </mat-form-field>
-          <mat-form-field>
-            <mat-label>Repeat new password</mat-label>
-            <input matInput formControlName="repeat" type="password" autocomplete="new-password" />
-            <mat-error>{{ message('repeat', 'Repeated password') }}</mat-error>
-          </mat-form-field>
+          <rp-new-password-fields />
           <div class="actions">
-            <button matButton="filled" type="submit" [disabled]="pending()">
-              @if (pending()) {
-                <mat-spinner diameter="18" aria-label="Saving" />
-              }
-              Save password
-            </button>
+            <rp-submit-button [pending]="pending()" busyLabel="Saving"
+              >Save password</rp-submit-button
+            >
           </div>
         </form>
       }
@@ -87,21 +65,12 @@ export class ResetPassword {
   /** `:token` (or `?token=`) from the e-mailed link. */
   readonly token = input<string>();
 
-  protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly form = inject(NonNullableFormBuilder).group({
     password: ['', [...NEW_PASSWORD_VALIDATORS]],
     repeat: ['', [Validators.required, matchesSibling('password')]],
   });
   protected readonly pending = signal(false);
   protected readonly formError = signal<string | null>(null);
-
-  constructor() {
-    revalidateOn(this.form.controls.password, this.form.controls.repeat);
-  }
-
-  protected message(name: 'password' | 'repeat', label: string): string {
-    return fieldMessage(this.form.controls[name], label);
-  }
 
   protected submit(): void {
     const token = this.token();

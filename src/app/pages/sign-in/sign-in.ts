@@ -3,7 +3,6 @@ import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angula
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressSpinnerModule } from '@angular/material/progress-spinner';
 import { Router, RouterLink } from '@angular/router';
 
 import { toApiProblem } from '../../shared/api/api-error';
@@ -12,6 +11,7 @@ import { safeReturnUrl } from '../../shared/auth/return-url';
 import { fieldMessage } from '../../shared/forms/field-message';
 import { FormCard } from '../../shared/forms/form-card';
 import { FormMessage } from '../../shared/forms/form-message';
+import { SubmitButton } from '../../shared/forms/submit-button';
 import { applyServerErrors } from '../../shared/forms/server-errors';
 
 /** Notices other pages send here with `?notice=`. */
@@ -29,9 +29,9 @@ const NOTICES: Record<string, string> = {
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressSpinnerModule,
     FormCard,
     FormMessage,
+    SubmitButton,
   ],
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
@@ -59,12 +59,7 @@ const NOTICES: Record<string, string> = {
           <mat-error>{{ message('password', 'Password') }}</mat-error>
         </mat-form-field>
         <div class="actions">
-          <button matButton="filled" type="submit" [disabled]="pending()">
-            @if (pending()) {
-              <mat-spinner diameter="18" aria-label="Signing in" />
-            }
-            Sign in
-          </button>
+          <rp-submit-button [pending]="pending()" busyLabel="Signing in">Sign in</rp-submit-button>
           <a matButton routerLink="/forgot-password">Forgot password?</a>
         </div>
       </form>
