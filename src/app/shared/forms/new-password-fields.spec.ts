@@ -1,4 +1,4 @@
-import { Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 
@@ -7,6 +7,7 @@ import { NewPasswordFields } from './new-password-fields';
 
 @Component({
   imports: [ReactiveFormsModule, NewPasswordFields],
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `<form [formGroup]="form"><rp-new-password-fields label="Password" /></form>`,
 })
 class Host {
@@ -21,6 +22,7 @@ class Host {
 
 @Component({
   imports: [ReactiveFormsModule, NewPasswordFields],
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `<form [formGroup]="form"><rp-new-password-fields /></form>`,
 })
 class HostWithoutRepeat {
