@@ -6,15 +6,10 @@ import { MAX_MESSAGE_BYTES } from '@rampart/collab/sync/limits';
 import { MessageType, SyncStep } from '@rampart/collab/sync/message-type';
 import { encodeAwarenessBytes, encodeUpdate, toWire } from '@rampart/collab/sync/wire-codec';
 
-import { eventually, TestPlanClient } from '../../utils/collab-client';
-import {
-  AccessTable,
-  createPlanRow,
-  startCollabTestServer,
-  type CollabTestServer,
-} from '../../utils/collab-test-server';
+import { eventually } from '../../utils/collab-client';
+import { createPlanRow } from '../../utils/collab-test-server';
+import { useRelayRoom } from '../../utils/relay-room';
 import { randomInt, seededRandom } from '../../utils/seeded-random';
-import { createTestDatabase, type TestDatabase } from '../../utils/test-database';
 
 const ATTACKER = '00000000-0000-4000-8000-0000000000a1';
 const EDITOR = '00000000-0000-4000-8000-0000000000a2';
@@ -40,36 +35,13 @@ function frame(type: number, step: number, body: Uint8Array): Uint8Array {
 }
 
 describe('live plan relay: bad input', () => {
-  let db: TestDatabase;
-  let server: CollabTestServer;
-  let planId: string;
-  const access = new AccessTable();
-  const clients: TestPlanClient[] = [];
-
-  beforeAll(async () => {
-    db = await createTestDatabase();
-    // A generous rate limit here: this file tests decoding; the flood test sets its own.
-    server = await startCollabTestServer({
-      databaseUrl: db.url,
-      access,
-      options: { messagesPerSecond: 100_000, messageBurst: 100_000 },
-    });
-    planId = await createPlanRow(server.dataSource, 'motor-drive-fuzz');
-    access.grant(planId, ATTACKER, 'editor');
-    access.grant(planId, EDITOR, 'editor');
-  });
-
-  afterAll(async () => {
-    for (const c of clients) c.close();
-    await server.stop();
-    await db.drop();
-  });
-
-  function client(user: string): TestPlanClient {
-    const c = new TestPlanClient(server.url, user, planId);
-    clients.push(c);
-    return c;
-  }
+  // A generous rate limit here: this file tests decoding; the flood test sets its own.
+  const relay = useRelayRoom(
+    'motor-drive-fuzz',
+    { [ATTACKER]: 'editor', [EDITOR]: 'editor' },
+    { messagesPerSecond: 100_000, messageBurst: 100_000 },
+  );
+  const { client, clients } = relay;
 
   it('1 000 random and truncated messages → each rejected, server up, document unchanged', async () => {
     const editor = client(EDITOR);
@@ -77,7 +49,7 @@ describe('live plan relay: bad input', () => {
     await Promise.all([editor.ready(), attacker.ready()]);
     editor.doc.getMap('parts').set('U1', { kind: 'buck', vout: 5 });
     await eventually(() => expect(editor.acknowledged).toHaveLength(1));
-    const room = server.relay.registry.get(planId)!;
+    const room = relay.server.relay.registry.get(relay.planId)!;
     const before = Y.encodeStateAsUpdate(room.doc);
     const random = seededRandom(20261201);
     const codes = new Map<string, number>();
@@ -139,7 +111,7 @@ describe('live plan relay: bad input', () => {
 
   it('payload not base64 text, and message for a plan not joined → malformed / not_joined', async () => {
     const attacker = clients[1]!;
-    const room = server.relay.registry.get(planId)!;
+    const room = relay.server.relay.registry.get(relay.planId)!;
     const before = Y.encodeStateAsUpdate(room.doc);
     const valid = toWire(validMessage(seededRandom(2)));
     const bad: Array<[unknown, string]> = [
@@ -161,7 +133,7 @@ describe('live plan relay: bad input', () => {
     expect(attacker.socket.connected).toBe(true);
     const res1 = await attacker.sendPayload('hello');
     expect(res1).toMatchObject({ error: { code: 'malformed' } });
-    const other = await createPlanRow(server.dataSource, 'motor-drive-other');
+    const other = await createPlanRow(relay.server.dataSource, 'motor-drive-other');
     const res2 = await attacker.sendRaw(validMessage(seededRandom(1)), other);
     expect(res2).toMatchObject({ error: { code: 'not_joined' } });
   });
@@ -190,44 +162,24 @@ describe('live plan relay: bad input', () => {
 });
 
 describe('live plan relay: flood from one socket', () => {
-  let db: TestDatabase;
-  let server: CollabTestServer;
-  const access = new AccessTable();
-
-  beforeAll(async () => {
-    db = await createTestDatabase();
-    server = await startCollabTestServer({
-      databaseUrl: db.url,
-      access,
-      options: { messagesPerSecond: 50, messageBurst: 50 },
-    });
-  });
-
-  afterAll(async () => {
-    await server.stop();
-    await db.drop();
-  });
+  const relay = useRelayRoom(
+    'motor-drive-flood',
+    { [ATTACKER]: 'editor', [EDITOR]: 'editor' },
+    { messagesPerSecond: 50, messageBurst: 50 },
+  );
 
   it('500 messages at once → the excess is rate_limited, other clients unaffected', async () => {
-    const planId = await createPlanRow(server.dataSource, 'motor-drive-flood');
-    access.grant(planId, ATTACKER, 'editor');
-    access.grant(planId, EDITOR, 'editor');
-    const attacker = new TestPlanClient(server.url, ATTACKER, planId);
-    const editor = new TestPlanClient(server.url, EDITOR, planId);
-    try {
-      await Promise.all([attacker.ready(), editor.ready()]);
-      const step1 = frame(MessageType.Sync, SyncStep.Step1, Y.encodeStateVector(attacker.doc));
-      const results = await Promise.all(Array.from({ length: 500 }, () => attacker.sendRaw(step1)));
-      const limited = results.filter((r) => 'error' in r && r.error.code === 'rate_limited').length;
-      expect(limited).toBeGreaterThan(400);
-      expect(
-        attacker.errors.filter((e) => e.code === 'rate_limited').length,
-      ).toBeGreaterThanOrEqual(1);
-      editor.doc.getMap('parts').set('U4', { kind: 'core', vout: 1.2 });
-      await eventually(() => expect(editor.acknowledged).toHaveLength(1));
-    } finally {
-      attacker.close();
-      editor.close();
-    }
+    const attacker = relay.client(ATTACKER);
+    const editor = relay.client(EDITOR);
+    await Promise.all([attacker.ready(), editor.ready()]);
+    const step1 = frame(MessageType.Sync, SyncStep.Step1, Y.encodeStateVector(attacker.doc));
+    const results = await Promise.all(Array.from({ length: 500 }, () => attacker.sendRaw(step1)));
+    const limited = results.filter((r) => 'error' in r && r.error.code === 'rate_limited').length;
+    expect(limited).toBeGreaterThan(400);
+    expect(attacker.errors.filter((e) => e.code === 'rate_limited').length).toBeGreaterThanOrEqual(
+      1,
+    );
+    editor.doc.getMap('parts').set('U4', { kind: 'core', vout: 1.2 });
+    await eventually(() => expect(editor.acknowledged).toHaveLength(1));
   });
 });

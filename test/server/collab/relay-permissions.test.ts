@@ -5,14 +5,8 @@ import { PLAN_NAMESPACE } from '@rampart/collab/sync/events';
 import { encodeUpdate } from '@rampart/collab/sync/wire-codec';
 
 import { PlanDocumentRepository } from '../../../server/data-access/repositories/plan-document-repository';
-import { eventually, TestPlanClient } from '../../utils/collab-client';
-import {
-  AccessTable,
-  createPlanRow,
-  startCollabTestServer,
-  type CollabTestServer,
-} from '../../utils/collab-test-server';
-import { createTestDatabase, type TestDatabase } from '../../utils/test-database';
+import { eventually } from '../../utils/collab-client';
+import { useRelayRoom } from '../../utils/relay-room';
 
 const OWNER = '00000000-0000-4000-8000-000000000001';
 const VIEWER = '00000000-0000-4000-8000-000000000002';
@@ -21,36 +15,16 @@ const EDITOR = '00000000-0000-4000-8000-000000000004';
 const STRANGER = '00000000-0000-4000-8000-000000000005';
 
 describe('live plan relay: roles enforced by the server', () => {
-  let db: TestDatabase;
-  let server: CollabTestServer;
-  let planId: string;
-  const access = new AccessTable();
-  const clients: TestPlanClient[] = [];
-
-  beforeAll(async () => {
-    db = await createTestDatabase();
-    server = await startCollabTestServer({ databaseUrl: db.url, access });
-    planId = await createPlanRow(server.dataSource, 'motor-drive-roles');
-    access.grant(planId, OWNER, 'owner');
-    access.grant(planId, VIEWER, 'viewer');
-    access.grant(planId, REVIEWER, 'reviewer');
-    access.grant(planId, EDITOR, 'editor');
+  const room = useRelayRoom('motor-drive-roles', {
+    [OWNER]: 'owner',
+    [VIEWER]: 'viewer',
+    [REVIEWER]: 'reviewer',
+    [EDITOR]: 'editor',
   });
-
-  afterAll(async () => {
-    for (const c of clients) c.close();
-    await server.stop();
-    await db.drop();
-  });
-
-  function client(user: string, plan = planId): TestPlanClient {
-    const c = new TestPlanClient(server.url, user, plan);
-    clients.push(c);
-    return c;
-  }
+  const { client, access } = room;
 
   async function storedParts(): Promise<Record<string, unknown>> {
-    const stored = await new PlanDocumentRepository(server.dataSource).load(planId);
+    const stored = await new PlanDocumentRepository(room.server.dataSource).load(room.planId);
     const doc = new Y.Doc();
     Y.applyUpdate(doc, stored.state);
     for (const u of stored.updates) Y.applyUpdate(doc, u.update);
@@ -82,7 +56,9 @@ describe('live plan relay: roles enforced by the server', () => {
     await eventually(() => expect(owner.acknowledged.length).toBeGreaterThanOrEqual(2));
     await eventually(() => expect(watcher.doc.getMap('parts').get(`after-${role}`)).toBe(true));
     expect(owner.doc.getMap('parts').has(`bad-${role}`)).toBe(false);
-    expect(server.relay.registry.get(planId)!.doc.getMap('parts').has(`bad-${role}`)).toBe(false);
+    expect(
+      room.server.relay.registry.get(room.planId)!.doc.getMap('parts').has(`bad-${role}`),
+    ).toBe(false);
     expect(await storedParts()).not.toHaveProperty(`bad-${role}`);
   });
 
@@ -97,7 +73,7 @@ describe('live plan relay: roles enforced by the server', () => {
   });
 
   it('socket without a signed-in user → refused with unauthenticated', async () => {
-    const socket = io(`${server.url}${PLAN_NAMESPACE}`, {
+    const socket = io(`${room.server.url}${PLAN_NAMESPACE}`, {
       transports: ['websocket'],
       forceNew: true,
     });
@@ -109,7 +85,7 @@ describe('live plan relay: roles enforced by the server', () => {
   });
 
   it('socket from a foreign page origin → refused with origin_denied', async () => {
-    const socket = io(`${server.url}${PLAN_NAMESPACE}`, {
+    const socket = io(`${room.server.url}${PLAN_NAMESPACE}`, {
       transports: ['websocket'],
       forceNew: true,
       query: { testUser: OWNER },
@@ -133,7 +109,7 @@ describe('live plan relay: roles enforced by the server', () => {
     const owner = client(OWNER);
     const editor = client(EDITOR);
     await Promise.all([owner.ready(), editor.ready()]);
-    access.revoke(planId, EDITOR);
+    access.revoke(room.planId, EDITOR);
     await eventually(() =>
       expect(editor.accessChanges).toContainEqual({ role: null, readOnly: true }),
     );
@@ -148,10 +124,10 @@ describe('live plan relay: roles enforced by the server', () => {
   });
 
   it('editor lowered to viewer while connected → the next update is denied', async () => {
-    access.grant(planId, EDITOR, 'editor');
+    access.grant(room.planId, EDITOR, 'editor');
     const editor = client(EDITOR);
     await editor.ready();
-    access.grant(planId, EDITOR, 'viewer');
+    access.grant(room.planId, EDITOR, 'viewer');
     await eventually(() =>
       expect(editor.accessChanges).toContainEqual({ role: 'viewer', readOnly: true }),
     );

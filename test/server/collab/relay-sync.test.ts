@@ -1,14 +1,9 @@
 import * as Y from 'yjs';
 
 import { PlanDocumentRepository } from '../../../server/data-access/repositories/plan-document-repository';
-import { eventually, TestPlanClient } from '../../utils/collab-client';
-import {
-  AccessTable,
-  createPlanRow,
-  startCollabTestServer,
-  type CollabTestServer,
-} from '../../utils/collab-test-server';
-import { createTestDatabase, type TestDatabase } from '../../utils/test-database';
+import { eventually } from '../../utils/collab-client';
+import type { CollabTestServer } from '../../utils/collab-test-server';
+import { useRelayRoom } from '../../utils/relay-room';
 
 const ALICE = '00000000-0000-4000-8000-00000000000a';
 const BOB = '00000000-0000-4000-8000-00000000000b';
@@ -23,42 +18,19 @@ async function storedDoc(server: CollabTestServer, planId: string): Promise<Y.Do
 }
 
 describe('live plan relay: sync and storage', () => {
-  let db: TestDatabase;
-  let server: CollabTestServer;
-  let planId: string;
-  const access = new AccessTable();
-  const clients: TestPlanClient[] = [];
-
-  beforeAll(async () => {
-    db = await createTestDatabase();
-    server = await startCollabTestServer({ databaseUrl: db.url, access });
-    planId = await createPlanRow(server.dataSource, 'motor-drive-sync');
-    access.grant(planId, ALICE, 'editor');
-    access.grant(planId, BOB, 'owner');
-  });
-
-  afterAll(async () => {
-    for (const c of clients) c.close();
-    await server.stop();
-    await db.drop();
-  });
-
-  function client(user: string): TestPlanClient {
-    const c = new TestPlanClient(server.url, user, planId);
-    clients.push(c);
-    return c;
-  }
+  const room = useRelayRoom('motor-drive-sync', { [ALICE]: 'editor', [BOB]: 'owner' });
+  const { client, clients } = room;
 
   it('edit by one editor → applied by the other and present in PostgreSQL when acknowledged', async () => {
     const alice = client(ALICE);
     const bob = client(BOB);
     await Promise.all([alice.ready(), bob.ready()]);
-    expect(alice.join).toEqual({ planId, role: 'editor', readOnly: false });
+    expect(alice.join).toEqual({ planId: room.planId, role: 'editor', readOnly: false });
 
     alice.doc.getMap('parts').set('U3', { kind: 'ldo', vout: 3.3 });
     await eventually(() => expect(alice.acknowledged).toHaveLength(1));
     // Acknowledged means committed: the stored document already holds the edit.
-    const stored = await storedDoc(server, planId);
+    const stored = await storedDoc(room.server, room.planId);
     expect(stored.getMap('parts').get('U3')).toEqual({ kind: 'ldo', vout: 3.3 });
     await eventually(() =>
       expect(bob.doc.getMap('parts').get('U3')).toEqual({ kind: 'ldo', vout: 3.3 }),
