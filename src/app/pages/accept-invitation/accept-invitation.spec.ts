@@ -1,11 +1,13 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { Router, provideRouter } from '@angular/router';
 
 import type { InvitationPreview } from '@rampart/collab/api/accounts';
 
 import { ME_URL } from '../../shared/auth/auth-session';
+import { OfflineCopyRegistry } from '../../shared/plan-session/offline-copy-registry';
 import { TEAM_ID, TEAM_NAME, apiError, meAs } from '../../testing/account-fixtures';
 import { AcceptInvitation } from './accept-invitation';
 
@@ -21,10 +23,19 @@ const PREVIEW: InvitationPreview = {
 describe('AcceptInvitation page', () => {
   let http: HttpTestingController;
 
-  async function render(me: ReturnType<typeof meAs> | null) {
+  async function render(me: ReturnType<typeof meAs> | null, unsentEdits = 0) {
     TestBed.configureTestingModule({
       imports: [AcceptInvitation],
-      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        {
+          provide: OfflineCopyRegistry,
+          useValue: { unsentEdits: async () => unsentEdits, clearUser: clearCopies },
+        },
+      ],
     });
     http = TestBed.inject(HttpTestingController);
     const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
@@ -39,7 +50,14 @@ describe('AcceptInvitation page', () => {
     return { fixture, el: fixture.nativeElement as HTMLElement, navigate };
   }
 
-  afterEach(() => http.verify());
+  let clearCopies: jest.Mock<Promise<string[]>, [string]>;
+  beforeEach(() => {
+    clearCopies = jest.fn(async (_userId: string): Promise<string[]> => []);
+  });
+  afterEach(() => {
+    http.verify();
+    document.querySelectorAll('.cdk-overlay-container').forEach((e) => e.remove());
+  });
 
   it('signed out → the offer, and sign-in / register links that come back here', async () => {
     const { el } = await render(null);
@@ -82,6 +100,43 @@ describe('AcceptInvitation page', () => {
       .flush(apiError('forbidden', refusal), { status: 403, statusText: 'Forbidden' });
     await fixture.whenStable();
     expect(el.querySelector('[data-testid=accept-error]')?.textContent).toContain(refusal);
+  });
+
+  it('another address with 2 unsent edits → "Sign out and use…" asks; Cancel keeps all, confirm signs out', async () => {
+    const { fixture, el, navigate } = await render(meAs('owner', 'someone.else@rampart.test'), 2);
+    const switchButton = () =>
+      [...el.querySelectorAll('button')].find((b) => b.textContent?.includes('Sign out and use'))!;
+    const dialogButton = (label: string) =>
+      [...document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button')].find(
+        (b) => b.textContent?.trim() === label,
+      );
+    const settle = () => new Promise((resolve) => setTimeout(resolve));
+
+    switchButton().click();
+    await settle();
+    await fixture.whenStable();
+    expect(document.querySelector('mat-dialog-container')?.textContent).toContain(
+      '2 edits made in this browser have not reached the server yet',
+    );
+    dialogButton('Cancel')!.click();
+    await settle();
+    await fixture.whenStable();
+    http.expectNone('/api/auth/sign-out');
+    expect(clearCopies).not.toHaveBeenCalled();
+    expect(navigate).not.toHaveBeenCalled();
+
+    switchButton().click();
+    await settle();
+    await fixture.whenStable();
+    dialogButton('Sign out anyway')!.click();
+    await settle();
+    await fixture.whenStable();
+    expect(clearCopies).toHaveBeenCalledTimes(1);
+    http.expectOne('/api/auth/sign-out').flush(null);
+    await settle();
+    expect(navigate).toHaveBeenCalledWith(['/sign-in'], {
+      queryParams: { returnUrl: `/invitations/${TOKEN}` },
+    });
   });
 
   it('unknown or withdrawn invitation (404) → a clear message instead of the offer', async () => {

@@ -19,6 +19,7 @@ import type { InvitationPreview } from '@rampart/collab/api/accounts';
 
 import { toApiProblem } from '../../shared/api/api-error';
 import { AuthSession } from '../../shared/auth/auth-session';
+import { SignOutFlow } from '../../shared/auth/sign-out-flow';
 import { FormCard } from '../../shared/forms/form-card';
 import { FormMessage } from '../../shared/forms/form-message';
 import { ROLE_HINTS, ROLE_LABELS } from '../../shared/teams/team-abilities';
@@ -115,6 +116,7 @@ import { TeamDirectory } from '../../shared/teams/team-directory';
 export class AcceptInvitation {
   private readonly _directory = inject(TeamDirectory);
   private readonly _router = inject(Router);
+  private readonly _signOut = inject(SignOutFlow);
   protected readonly session = inject(AuthSession);
 
   /** `:token` from the link. */
@@ -164,9 +166,8 @@ export class AcceptInvitation {
   }
 
   protected switchAccount(): void {
-    this.session.signOut().subscribe({
-      complete: () => this._goToSignIn(),
-      error: () => this._goToSignIn(),
+    this._signOut.signOut().subscribe((signedOut) => {
+      if (signedOut) this._goToSignIn();
     });
   }
 

@@ -8,7 +8,8 @@ import { firstValueFrom } from 'rxjs';
 import { meAs } from '../../testing/account-fixtures';
 import { OfflineCopyRegistry } from '../plan-session/offline-copy-registry';
 import { AuthSession, ME_URL } from './auth-session';
-import { UserMenu, discardQuestion } from './user-menu';
+import { discardQuestion } from './sign-out-flow';
+import { UserMenu } from './user-menu';
 
 /** Lets pending promises and dialog openings run. */
 const settle = () => new Promise((resolve) => setTimeout(resolve));

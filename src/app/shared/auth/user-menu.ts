@@ -1,36 +1,15 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { Router, RouterLink } from '@angular/router';
 
-import { askToConfirm } from '../dialogs/confirm-dialog';
-import { OfflineCopyRegistry } from '../plan-session/offline-copy-registry';
 import { AuthSession } from './auth-session';
-
-/** The question before a sign-out that would discard `count` unsent edits. */
-export function discardQuestion(count: number): {
-  title: string;
-  message: string;
-  confirm: string;
-} {
-  const edits = count === 1 ? '1 edit' : `${count} edits`;
-  return {
-    title: 'Discard unsent edits?',
-    message:
-      `${edits} made in this browser ${count === 1 ? 'has' : 'have'} not reached the server ` +
-      'yet. Signing out deletes the copies of your plans kept in this browser, and ' +
-      `${count === 1 ? 'that edit' : 'those edits'} with them. Cancel to stay signed in: ` +
-      'unsent edits are sent as soon as the connection is back.',
-    confirm: 'Sign out anyway',
-  };
-}
+import { SignOutFlow } from './sign-out-flow';
 
 /**
- * Toolbar button with the signed-in user's name; its menu changes the password or signs out.
- * Signing out deletes this browser's offline copies of the user's plans, so when some edit in
- * them has not reached the server yet it asks first.
+ * Toolbar button with the signed-in user's name; its menu changes the password or signs out
+ * (through `SignOutFlow`, which asks first when unsent edits would be discarded).
  */
 @Component({
   selector: 'rp-user-menu',
@@ -73,25 +52,15 @@ export function discardQuestion(count: number): {
 export class UserMenu {
   private readonly _session = inject(AuthSession);
   private readonly _router = inject(Router);
-  private readonly _dialog = inject(MatDialog);
-  private readonly _offlineCopies = inject(OfflineCopyRegistry);
+  private readonly _signOut = inject(SignOutFlow);
 
   protected readonly name = computed(() => this._session.user()?.name ?? '');
   protected readonly email = computed(() => this._session.user()?.email ?? '');
 
-  protected async signOut(): Promise<void> {
-    const userId = this._session.user()?.id;
-    const unsent = userId ? await this._offlineCopies.unsentEdits(userId).catch(() => 0) : 0;
-    if (unsent > 0) {
-      askToConfirm(this._dialog, discardQuestion(unsent)).subscribe((yes) => {
-        if (yes) this._signOutNow();
-      });
-    } else this._signOutNow();
-  }
-
-  private _signOutNow(): void {
-    const done = () =>
-      void this._router.navigate(['/sign-in'], { queryParams: { notice: 'signed-out' } });
-    this._session.signOut().subscribe({ complete: done, error: done });
+  protected signOut(): void {
+    this._signOut.signOut().subscribe((signedOut) => {
+      if (signedOut)
+        void this._router.navigate(['/sign-in'], { queryParams: { notice: 'signed-out' } });
+    });
   }
 }
