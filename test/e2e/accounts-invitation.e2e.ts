@@ -1,17 +1,14 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
 
 import type { Page } from 'playwright-core';
 
 import { linkInMail } from '../utils/api-client';
 import { launchBrowser, type TestBrowser } from '../utils/browser';
+import { shoot } from '../utils/screenshots';
 import { startTestServer, type TestServer } from '../utils/test-server';
 
 // A whole user journey in a real browser on a shared 2-core machine: minutes, not seconds.
 jest.setTimeout(180_000);
-
-const shots = path.resolve(__dirname, '../../dist/screenshots');
 
 // Demo accounts seeded by the server (`server/data-access/seed.ts`); local use only.
 const OWNER = { email: 'olivia.owner@rampart.test', password: 'rampart-demo' };
@@ -22,15 +19,6 @@ const NEWCOMER = {
 };
 const OTHER_INVITEE = 'sam.second@rampart.test';
 const TEAM = 'Motor-drive controller team';
-
-/** Light and dark screenshots of the page as it is now. */
-async function shoot(page: Page, name: string): Promise<void> {
-  await page.emulateMedia({ colorScheme: 'light' });
-  await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'dark' });
-  await page.screenshot({ path: path.join(shots, `${name}-dark.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'light' });
-}
 
 async function signIn(page: Page, email: string, password: string): Promise<void> {
   await page.getByLabel('E-mail').fill(email);
@@ -50,7 +38,6 @@ describe('accounts in Chromium: invitation by e-mail', () => {
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
     browser = await launchBrowser();
-    mkdirSync(shots, { recursive: true });
   });
   afterAll(async () => {
     await browser?.close();

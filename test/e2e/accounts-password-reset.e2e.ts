@@ -1,29 +1,16 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-
-import type { Page } from 'playwright-core';
 
 import { linkInMail } from '../utils/api-client';
 import { launchBrowser, type TestBrowser } from '../utils/browser';
+import { shoot } from '../utils/screenshots';
 import { startTestServer, type TestServer } from '../utils/test-server';
 
 // A whole user journey in a real browser on a shared 2-core machine: minutes, not seconds.
 jest.setTimeout(180_000);
 
-const shots = path.resolve(__dirname, '../../dist/screenshots');
-
 // Demo account seeded by the server (`server/data-access/seed.ts`); local use only.
 const EDITOR = 'eddie.editor@rampart.test';
 const NEW_PASSWORD = 'bench supply at 24 volts';
-
-async function shoot(page: Page, name: string): Promise<void> {
-  await page.emulateMedia({ colorScheme: 'light' });
-  await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'dark' });
-  await page.screenshot({ path: path.join(shots, `${name}-dark.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'light' });
-}
 
 describe('accounts in Chromium: password reset by e-mail', () => {
   let server: TestServer;
@@ -31,7 +18,6 @@ describe('accounts in Chromium: password reset by e-mail', () => {
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
     browser = await launchBrowser();
-    mkdirSync(shots, { recursive: true });
   });
   afterAll(async () => {
     await browser?.close();

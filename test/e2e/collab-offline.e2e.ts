@@ -1,6 +1,4 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
 
 import { Client } from 'pg';
 import type { BrowserContext, Page, WebSocketRoute } from 'playwright-core';
@@ -17,8 +15,7 @@ import {
   type Person,
 } from '../utils/live-plan-browser';
 import { startTestServer, type TestServer } from '../utils/test-server';
-
-const shots = path.resolve(__dirname, '../../dist/screenshots');
+import { shoot } from '../utils/screenshots';
 
 /**
  * Cuts one browser's link to the relay while its pages still load: the app has no service
@@ -178,7 +175,6 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
 
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
-    mkdirSync(shots, { recursive: true });
     planId = await demoPlanId(server, owner.email);
   }, 60_000);
 
@@ -211,7 +207,7 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
     expect(await b.getByTestId('all-saved').count()).toBe(0);
     // The edit and its unsent count are in the offline copy before the reload.
     await until(async () => (await storedUnsent(b, copyName())) === 1, 'unsent count stored');
-    await b.screenshot({ path: path.join(shots, 'plan-offline-unsent-light.png'), fullPage: true });
+    await shoot(b, 'plan-offline-unsent', { lightOnly: true });
 
     // Reload while still cut off: the plan comes from IndexedDB, edit and indicator included.
     await b.reload();
@@ -220,10 +216,7 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
     await b.getByTestId('connection-state').getByText('Offline').waitFor({ timeout: 15_000 });
     expect(await storedR4(server, planId)).toBe(100_000);
     await expect(valueInput(a, 'R4').inputValue()).resolves.toBe('100 k');
-    await b.screenshot({
-      path: path.join(shots, 'plan-offline-reloaded-light.png'),
-      fullPage: true,
-    });
+    await shoot(b, 'plan-offline-reloaded', { lightOnly: true });
 
     // Back online: merged, indicator cleared, the owner and the server's stored doc have it.
     editor.relay!.restore();
@@ -256,12 +249,7 @@ describe('live plan offline: kept across a reload, merged when back, cleared at 
     await dialog.getByText('Discard unsent edits?').waitFor();
     await dialog.getByText(/^1 edit made in this browser has not reached the server yet/).waitFor();
     await b.getByRole('menu').waitFor({ state: 'detached' });
-    await settled(b);
-    await b.screenshot({ path: path.join(shots, 'sign-out-unsent-light.png') });
-    await b.emulateMedia({ colorScheme: 'dark' });
-    await settled(b);
-    await b.screenshot({ path: path.join(shots, 'sign-out-unsent-dark.png') });
-    await b.emulateMedia({ colorScheme: 'light' });
+    await shoot(b, 'sign-out-unsent', { fullPage: false, settle: () => settled(b) });
 
     // Cancel: still signed in on the plan, the edit and its copy untouched.
     await dialog.getByRole('button', { name: 'Cancel' }).click();

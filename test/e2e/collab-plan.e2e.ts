@@ -1,11 +1,8 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
 
 import { demoPlanId, openAs, valueInput, type Person } from '../utils/live-plan-browser';
+import { shoot } from '../utils/screenshots';
 import { startTestServer, type TestServer } from '../utils/test-server';
-
-const shots = path.resolve(__dirname, '../../dist/screenshots');
 
 describe('live plan in two browsers and a viewer', () => {
   let server: TestServer;
@@ -16,7 +13,6 @@ describe('live plan in two browsers and a viewer', () => {
 
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
-    mkdirSync(shots, { recursive: true });
     planId = await demoPlanId(server, owner.email);
   }, 60_000);
 
@@ -74,10 +70,7 @@ describe('live plan in two browsers and a viewer', () => {
     await a.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     await b.locator(`[data-cursor-readout]`).getByText(owner.name).waitFor();
 
-    await a.screenshot({ path: path.join(shots, 'plan-live-light.png'), fullPage: true });
-    await a.emulateMedia({ colorScheme: 'dark' });
-    await a.screenshot({ path: path.join(shots, 'plan-live-dark.png'), fullPage: true });
-    await a.emulateMedia({ colorScheme: 'light' });
+    await shoot(a, 'plan-live');
 
     // Undo on the owner's side reverts only the owner's edit, for everyone.
     await a.getByTestId('undo').click();
@@ -117,9 +110,7 @@ describe('live plan in two browsers and a viewer', () => {
       .getByTestId('session-error')
       .getByText(/read-only/)
       .waitFor();
-    await c.screenshot({ path: path.join(shots, 'plan-viewer-light.png'), fullPage: true });
-    await c.emulateMedia({ colorScheme: 'dark' });
-    await c.screenshot({ path: path.join(shots, 'plan-viewer-dark.png'), fullPage: true });
+    await shoot(c, 'plan-viewer');
     // The editors' pages still show the stored value.
     const a = owner.page!;
     await expect(valueInput(a, 'RL5', 'value').inputValue()).resolves.toBe(before);

@@ -1,11 +1,8 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
 
 import { launchBrowser, type TestBrowser } from '../utils/browser';
+import { shoot } from '../utils/screenshots';
 import { startTestServer, type TestServer } from '../utils/test-server';
-
-const shots = path.resolve(__dirname, '../../dist/screenshots');
 
 describe('app shell in Chromium', () => {
   let server: TestServer;
@@ -13,7 +10,6 @@ describe('app shell in Chromium', () => {
   beforeAll(async () => {
     server = await startTestServer();
     browser = await launchBrowser();
-    mkdirSync(shots, { recursive: true });
   });
   afterAll(async () => {
     await browser?.close();
@@ -54,9 +50,7 @@ describe('app shell in Chromium', () => {
       return document.fonts.check('16px "Atkinson Hyperlegible"');
     });
     expect(fontLoaded).toBe(true);
-    await page.screenshot({ path: path.join(shots, 'home.png'), fullPage: true });
-    await page.emulateMedia({ colorScheme: 'dark' });
-    await page.screenshot({ path: path.join(shots, 'home-dark.png'), fullPage: true });
+    await shoot(page, 'home');
     expect(failed).toEqual([]);
     expect(consoleErrors).toEqual([]);
     await page.close();

@@ -1,19 +1,14 @@
 /// <reference lib="dom" />
-import { mkdirSync } from 'node:fs';
-import path from 'node:path';
-
-import type { Page } from 'playwright-core';
 
 import type { InvitationDto, TeamDto } from '@rampart/collab/api/accounts';
 
 import { ApiClient, linkInMail } from '../utils/api-client';
 import { launchBrowser, type TestBrowser } from '../utils/browser';
+import { shoot } from '../utils/screenshots';
 import { startTestServer, type TestServer } from '../utils/test-server';
 
 // A whole user journey in a real browser on a shared 2-core machine: minutes, not seconds.
 jest.setTimeout(180_000);
-
-const shots = path.resolve(__dirname, '../../dist/screenshots');
 
 // Demo accounts seeded by the server (`server/data-access/seed.ts`); local use only.
 const PASSWORD = 'rampart-demo';
@@ -21,14 +16,6 @@ const OWNER = 'olivia.owner@rampart.test';
 const VIEWER = 'vic.viewer@rampart.test';
 const TEAM = 'Motor-drive controller team';
 const SECOND_TEAM = 'Bench fixtures';
-
-async function shoot(page: Page, name: string): Promise<void> {
-  await page.emulateMedia({ colorScheme: 'light' });
-  await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'dark' });
-  await page.screenshot({ path: path.join(shots, `${name}-dark.png`), fullPage: true });
-  await page.emulateMedia({ colorScheme: 'light' });
-}
 
 describe('viewer in Chromium: read-only team page', () => {
   let server: TestServer;
@@ -39,7 +26,6 @@ describe('viewer in Chromium: read-only team page', () => {
   beforeAll(async () => {
     server = await startTestServer({ SEED_DEMO: 'true' });
     browser = await launchBrowser();
-    mkdirSync(shots, { recursive: true });
 
     // Set-up through the API: the owner starts a second team and invites the viewer to it, and
     // the viewer accepts, so the viewer has two teams (the toolbar then shows the switcher).
