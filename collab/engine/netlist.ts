@@ -304,7 +304,10 @@ export interface SimResult {
   events: SimEvent[];
   /** Accepted internal steps; present unless `keepSteps: false`. Added by the sim engineer. */
   steps?: SimSteps;
-  /** Largest |v| of every net (ground excluded) over the run, V: see `toleranceScale`. */
+  /**
+   * Largest |v| of every net (ground excluded) over the run, V, or its `toleranceScale` if that
+   * was larger: the tolerance reference each net ended the run with.
+   */
   peaks: Record<NetName, number>;
   stats: {
     acceptedSteps: number;
