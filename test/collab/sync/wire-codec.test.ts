@@ -105,7 +105,17 @@ describe('wire codec', () => {
       reason: 'payload must be a base64 string',
     });
     const wire = toWire(encodeUpdate(update));
-    for (const bad of ['hello', `${wire}=`, `${wire.slice(1)}`, wire.replace(/.$/, '-'), ' AAA']) {
+    for (const bad of [
+      'hello',
+      `${wire}=`,
+      `${wire.slice(1)}`,
+      wire.replace(/.$/, '-'),
+      ' AAA',
+      'A===',
+      '====',
+      'AB=C',
+      'AAAé',
+    ]) {
       expect(decodePlanMessage(bad)).toMatchObject({
         ok: false,
         code: 'malformed',
