@@ -6,7 +6,7 @@ import {
   rcStepResponse,
 } from '@rampart/collab/engine/analysis/closed-form';
 import { crossingTimes } from '@rampart/collab/engine/analysis/waveform-ops';
-import type { Netlist } from '@rampart/collab/engine/netlist';
+import type { Netlist, SourceWaveform } from '@rampart/collab/engine/netlist';
 import { simulate } from '@rampart/collab/engine/sim/simulate';
 
 /** Largest |sim − closed form| over the output points, as a fraction of full scale. */
@@ -21,21 +21,20 @@ function worstError(
   return worst / fullScale;
 }
 
+/** Source `wave` on net `in`, then R1 to `out` and C1 from `out` to ground. */
+function rcNetlist(wave: SourceWaveform, ohms: number, farads: number): Netlist {
+  return {
+    elements: [
+      { kind: 'vsource', id: 'V1', pos: 'in', neg: '0', wave },
+      { kind: 'resistor', id: 'R1', a: 'in', b: 'out', ohms },
+      { kind: 'capacitor', id: 'C1', a: 'out', b: '0', farads },
+    ],
+  };
+}
+
 describe('closed forms beside the simulator', () => {
   it('RC step 5 V, τ = 1 ms → sim within 0.1 % FS of 5(1 − e^(−t/τ)); 63.2 % at τ; 1.2 V at −τ·ln(1 − 1.2/5)', () => {
-    const nl: Netlist = {
-      elements: [
-        {
-          kind: 'vsource',
-          id: 'V1',
-          pos: 'in',
-          neg: '0',
-          wave: { kind: 'step', t0: 0, v0: 0, v1: 5 },
-        },
-        { kind: 'resistor', id: 'R1', a: 'in', b: 'out', ohms: 1e3 },
-        { kind: 'capacitor', id: 'C1', a: 'out', b: '0', farads: 1e-6 },
-      ],
-    };
+    const nl = rcNetlist({ kind: 'step', t0: 0, v0: 0, v1: 5 }, 1e3, 1e-6);
     const r = simulate(nl, { tStop: 5e-3, outputPoints: 2001 });
     const out = r.nets['out'];
     expect(worstError(r.time, out, (t) => rcStepResponse(t, 1e-3, 5), 5)).toBeLessThan(1e-3);
@@ -46,19 +45,7 @@ describe('closed forms beside the simulator', () => {
   });
 
   it('RC driven by a 2 ms ramp to 3.3 V, τ = 0.47 ms → sim within 0.1 % FS of the ramp response', () => {
-    const nl: Netlist = {
-      elements: [
-        {
-          kind: 'vsource',
-          id: 'V1',
-          pos: 'in',
-          neg: '0',
-          wave: { kind: 'ramp', t0: 0, rise: 2e-3, v0: 0, v1: 3.3 },
-        },
-        { kind: 'resistor', id: 'R1', a: 'in', b: 'out', ohms: 4.7e3 },
-        { kind: 'capacitor', id: 'C1', a: 'out', b: '0', farads: 1e-7 },
-      ],
-    };
+    const nl = rcNetlist({ kind: 'ramp', t0: 0, rise: 2e-3, v0: 0, v1: 3.3 }, 4.7e3, 1e-7);
     const r = simulate(nl, { tStop: 6e-3, outputPoints: 2001 });
     expect(
       worstError(r.time, r.nets['out'], (t) => rcRampResponse(t, 0.47e-3, 3.3, 2e-3), 3.3),

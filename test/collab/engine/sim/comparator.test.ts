@@ -59,6 +59,22 @@ const supply: Element = {
   wave: { kind: 'dc', value: 5 },
 };
 const load: Element = { kind: 'resistor', id: 'RL', a: 'o', b: '0', ohms: 1e3 };
+/** The comparator's own supply ramping 0 → 5 V over 1 ms (power-on tests). */
+const ramp: Element = {
+  kind: 'vsource',
+  id: 'V5',
+  pos: 'v5',
+  neg: '0',
+  wave: { kind: 'ramp', t0: 0, rise: 1e-3, v0: 0, v1: 5 },
+};
+/** The input held at 3 V, above the 2 V threshold. */
+const high: Element = {
+  kind: 'vsource',
+  id: 'VS',
+  pos: 's',
+  neg: '0',
+  wave: { kind: 'dc', value: 3 },
+};
 
 describe('comparator', () => {
   it('simulate(triangle into comparator) → high at crossing of thr + hyst/2 plus delay, exact', () => {
@@ -118,20 +134,6 @@ describe('comparator', () => {
 
   it('simulate(supply ramp with pulse-low power-on) → low glitch of the set width at vstart', () => {
     // Supply ramps 0→5 V over 1 ms: crosses vstart 1 V at 0.2 ms; glitch lasts 50 µs.
-    const ramp: Element = {
-      kind: 'vsource',
-      id: 'V5',
-      pos: 'v5',
-      neg: '0',
-      wave: { kind: 'ramp', t0: 0, rise: 1e-3, v0: 0, v1: 5 },
-    };
-    const high: Element = {
-      kind: 'vsource',
-      id: 'VS',
-      pos: 's',
-      neg: '0',
-      wave: { kind: 'dc', value: 3 },
-    };
     const pullUp: Element = { kind: 'resistor', id: 'RPU', a: 'v5', b: 'o', ohms: 10e3 };
     const cmp = comparator({
       output: 'open-drain',
@@ -156,20 +158,6 @@ describe('comparator', () => {
   });
 
   it('simulate(supply below vmin, powerOn low) → output low until vmin then follows input', () => {
-    const ramp: Element = {
-      kind: 'vsource',
-      id: 'V5',
-      pos: 'v5',
-      neg: '0',
-      wave: { kind: 'ramp', t0: 0, rise: 1e-3, v0: 0, v1: 5 },
-    };
-    const high: Element = {
-      kind: 'vsource',
-      id: 'VS',
-      pos: 's',
-      neg: '0',
-      wave: { kind: 'dc', value: 3 },
-    };
     const r = run(comparator({ vmin: 2.5, delay: 0 }), [ramp, high, load], 1.5e-3);
     // Supply reaches vmin 2.5 V at 0.5 ms (closed form of the ramp).
     expectClose(eventTimes(r, 'comparator-high')[0], 5e-4, EXACT, 'vmin release');

@@ -26,6 +26,11 @@ const supervisor: SupervisorElement = {
   powerOn: { kind: 'low' },
 };
 
+/** The monitored 1.2 V rail as a piecewise-linear source of (time, volts) points. */
+function v12Pwl(points: Array<[number, number]>): Element {
+  return { kind: 'vsource', id: 'V12', pos: 'v12', neg: '0', wave: { kind: 'pwl', points } };
+}
+
 function run(v12: Element, tStop: number): SimResult {
   return simulate(
     {
@@ -77,22 +82,13 @@ describe('supervisor', () => {
 
   it('simulate(dip before timeout) → timer restarts from the recovery', () => {
     // v12 dips to 1.0 V (below 1.1 − 0.02) at 1.4 ms and recovers through 1.1 V at 1.5 ms.
-    const dip: Element = {
-      kind: 'vsource',
-      id: 'V12',
-      pos: 'v12',
-      neg: '0',
-      wave: {
-        kind: 'pwl',
-        points: [
-          [0.5e-3, 0],
-          [1e-3, 1.2],
-          [1.35e-3, 1.2],
-          [1.4e-3, 1.0],
-          [1.6e-3, 1.2],
-        ],
-      },
-    };
+    const dip = v12Pwl([
+      [0.5e-3, 0],
+      [1e-3, 1.2],
+      [1.35e-3, 1.2],
+      [1.4e-3, 1.0],
+      [1.6e-3, 1.2],
+    ]);
     const r = run(dip, 4e-3);
     const recover = 1.4e-3 + (0.1 / 0.2) * 0.2e-3;
     expectClose(times(r, 'reset-released')[0], recover + 1e-3, EXACT, 'release after restart');
@@ -100,21 +96,12 @@ describe('supervisor', () => {
 
   it('simulate(dip after release) → reset asserted delay after the fall below threshold − hysteresis', () => {
     // v12 falls 1.2 → 0.9 V over 2.5–2.6 ms: crosses 1.08 V at 2.5 + (0.12/0.3)·0.1 ms.
-    const late: Element = {
-      kind: 'vsource',
-      id: 'V12',
-      pos: 'v12',
-      neg: '0',
-      wave: {
-        kind: 'pwl',
-        points: [
-          [0.5e-3, 0],
-          [1e-3, 1.2],
-          [2.5e-3, 1.2],
-          [2.6e-3, 0.9],
-        ],
-      },
-    };
+    const late = v12Pwl([
+      [0.5e-3, 0],
+      [1e-3, 1.2],
+      [2.5e-3, 1.2],
+      [2.6e-3, 0.9],
+    ]);
     const r = run(late, 3e-3);
     const fall = 2.5e-3 + (0.12 / 0.3) * 0.1e-3;
     expectClose(times(r, 'reset-asserted')[1], fall + 2e-5, EXACT, 'assert');
